@@ -1,0 +1,106 @@
+// Basic maths for worksheets. Functions of plain numbers reject units; sqrt and
+// abs/min/max keep them. Trigonometric arguments are in radians (deg converts).
+import { divide, multiply, power, quantity, type Quantity } from '../units/quantity.js';
+import { dimsEqual, isDimensionless } from '../units/dims.js';
+import { unitLabel } from '../units/labels.js';
+import { num } from './build.js';
+import { type Args, TradeError, type TradeFunction, type ParamSpec } from './registry.js';
+import type { Value } from './values.js';
+
+const X: ParamSpec[] = [{ name: 'x', type: 'quantity', doc: 'argument' }];
+
+function q(args: Args, name = 'x'): Quantity {
+  const v = args[name];
+  if (!v || v.kind !== 'quantity') throw new TradeError(`${name} must be a number or quantity`);
+  return v;
+}
+
+function plainArg(args: Args, fn: string): number {
+  const v = q(args);
+  if (!isDimensionless(v.dims)) throw new TradeError(`${fn} needs a plain number, not a quantity in ${unitLabel(v.dims)}`);
+  return v.si;
+}
+
+function unary(name: string, doc: string, f: (x: number) => number, example: string): TradeFunction {
+  return {
+    name,
+    params: X,
+    doc,
+    source: 'ECMAScript Math (IEEE 754 double precision)',
+    example,
+    compute(args) {
+      const y = f(plainArg(args, name));
+      if (Number.isNaN(y)) throw new TradeError(`${name} is not defined for this argument`);
+      return num(y);
+    },
+  };
+}
+
+function extremum(name: 'min' | 'max'): TradeFunction {
+  return {
+    name,
+    params: [{ name: 'values', type: 'any', doc: 'a list, or several arguments' }],
+    doc: `the ${name === 'min' ? 'smallest' : 'largest'} of a list (units must agree)`,
+    source: 'definition',
+    example: `${name}([3, 1, 2] m)`,
+    compute(args) {
+      const items = collect(args);
+      if (items.length === 0) throw new TradeError(`${name} of nothing`);
+      let best = items[0]!;
+      for (const v of items) {
+        if (!dimsEqual(v.dims, best.dims)) throw new TradeError(`${name} cannot compare ${unitLabel(v.dims)} with ${unitLabel(best.dims)}`);
+        if (name === 'min' ? v.si < best.si : v.si > best.si) best = v;
+      }
+      return best;
+    },
+  };
+}
+
+/** min/max accept a list or any number of positional arguments (values, _2, _3 …). */
+function collect(args: Args): Quantity[] {
+  const out: Quantity[] = [];
+  const push = (v: Value) => {
+    if (v.kind === 'list') v.items.forEach(push);
+    else if (v.kind === 'quantity') out.push(v);
+    else throw new TradeError('min and max take numbers or quantities');
+  };
+  for (const v of Object.values(args)) if (v) push(v);
+  return out;
+}
+
+export const mathsFunctions: TradeFunction[] = [
+  {
+    name: 'sqrt',
+    params: X,
+    doc: 'square root (units take the half power)',
+    source: 'definition',
+    example: 'sqrt(4 m^2)',
+    compute(args) {
+      const v = q(args);
+      if (v.si < 0) throw new TradeError('sqrt of a negative value');
+      return power(v, num(0.5));
+    },
+  },
+  {
+    name: 'abs',
+    params: X,
+    doc: 'absolute value (keeps the unit)',
+    source: 'definition',
+    example: 'abs(-3 m/s)',
+    compute(args) {
+      const v = q(args);
+      return quantity(Math.abs(v.si), v.dims, v.unit?.offset ? undefined : v.unit);
+    },
+  },
+  unary('exp', 'e to the power x', Math.exp, 'exp(1)'),
+  unary('ln', 'natural logarithm', (x) => (x > 0 ? Math.log(x) : NaN), 'ln(10)'),
+  unary('log10', 'base-10 logarithm', (x) => (x > 0 ? Math.log10(x) : NaN), 'log10(1e6)'),
+  unary('sin', 'sine of an angle in radians (30 deg converts)', Math.sin, 'sin(30 deg)'),
+  unary('cos', 'cosine of an angle in radians', Math.cos, 'cos(pi/3)'),
+  unary('tan', 'tangent of an angle in radians', Math.tan, 'tan(45 deg)'),
+  extremum('min'),
+  extremum('max'),
+];
+
+// Keep the helpers reachable for families that scale quantities.
+export { divide, multiply };
