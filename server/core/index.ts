@@ -1,8 +1,9 @@
 // The registry of every trade function, family by family. Add a family here.
 import { Registry, type TradeFunction } from './registry.js';
 import { mathsFunctions } from './maths.js';
+import { fluidFunctions } from './fluids/index.js';
 
-export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsFunctions];
+export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsFunctions, fluidFunctions];
 
 export function createRegistry(): Registry {
   return new Registry(families.flat());

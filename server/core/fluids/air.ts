@@ -1,0 +1,52 @@
+// Air as an ideal gas, R = R*/M0 of the U.S. Standard Atmosphere 1976,
+// Sutherland viscosity (USSA-1976 constants) and a = sqrt(gamma R T), gamma = 1.4.
+// Humid air: density from the partial pressures of dry air and vapour
+// (Dalton's law, both ideal gases), vapour pressure = RH * p_sat(T) with
+// p_sat from IAPWS-IF97 Eq. 30.
+import { TradeError } from '../registry.js';
+import { GAMMA_AIR, R_AIR, R_VAPOUR } from './gas-constants.js';
+import { saturationPressure } from './saturation.js';
+import { sutherlandViscosity } from './sutherland.js';
+import { celsius, fmt } from './words.js';
+
+export interface AirProperties {
+  rho: number;
+  mu: number;
+  nu: number;
+  a: number;
+  /** Partial pressure of the water vapour, Pa. */
+  vapourPressure: number;
+}
+
+/** Outside this range Sutherland's law drifts by more than about 2 % (White, Viscous Fluid Flow, 2006, Table 1-2; from memory). */
+export const SUTHERLAND_RANGE_K = [170, 1900] as const;
+const HUMID_RANGE_K = [273.15, 373.15] as const;
+
+export function airProperties(T: number, p: number, RH = 0): AirProperties {
+  checkAbsolute(T);
+  if (!(p > 0)) throw new TradeError(`p = ${fmt(p)} Pa: the pressure must be above zero`);
+  if (!(RH >= 0 && RH <= 1)) {
+    const hint = RH > 1 && RH <= 100 ? `; write it with its unit, e.g. RH: ${fmt(RH)} %` : '';
+    throw new TradeError(`RH = ${fmt(RH * 100)} % is outside 0 to 100 %${hint}`);
+  }
+  let vapourPressure = 0;
+  if (RH > 0) {
+    if (T < HUMID_RANGE_K[0] || T > HUMID_RANGE_K[1]) {
+      throw new TradeError(
+        `humid air is covered from 0 to 100 \u00b0C (the saturation-pressure formula is for liquid water); got ${celsius(T)}. ` +
+          'Below 0 \u00b0C give RH: 0 %: at sea-level pressure the vapour changes the density by less than 0.3 % there',
+      );
+    }
+    vapourPressure = RH * saturationPressure(T);
+    if (vapourPressure >= p) {
+      throw new TradeError(`the vapour pressure ${fmt(vapourPressure)} Pa at ${celsius(T)} reaches the total pressure ${fmt(p)} Pa: the water would boil`);
+    }
+  }
+  const rho = (p - vapourPressure) / (R_AIR * T) + vapourPressure / (R_VAPOUR * T);
+  const mu = sutherlandViscosity(T);
+  return { rho, mu, nu: mu / rho, a: Math.sqrt(GAMMA_AIR * R_AIR * T), vapourPressure };
+}
+
+export function checkAbsolute(T: number, name = 'T'): void {
+  if (!(T > 0)) throw new TradeError(`${name} = ${celsius(T)} is ${T === 0 ? 'at' : 'below'} absolute zero`);
+}

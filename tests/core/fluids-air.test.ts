@@ -1,0 +1,99 @@
+import { describe, expect, it } from 'vitest';
+import { TradeError } from '../../server/core/registry.js';
+import { shown, si } from '../../server/core/build.js';
+import { airProperties } from '../../server/core/fluids/air.js';
+import { sutherlandViscosity } from '../../server/core/fluids/sutherland.js';
+import { asRecord, call, field, near } from './fluids-helpers.js';
+
+// USSA-1976 gas constants (crnslab "Standard Atmosphere" page, citing ICAO Doc 7488/2 and USSA-1976).
+const R_STAR = 8314.32; // J/(kmol K)
+const M_AIR = 28.9644; // kg/kmol
+
+describe("Sutherland's law with the USSA-1976 constants", () => {
+  it('gives the standard sea-level viscosity 1.7894e-5 Pa s at 288.15 K', () => {
+    // ML = 1.7894e-5 at TL = 288.15 K: constants of stdatm.m (repo radioflyer28/NexGenAirlifter), quoting USSA-1976.
+    near(sutherlandViscosity(288.15), 1.7894e-5, 0.00005e-5);
+  });
+
+  it('matches the air table of Incropera and DeWitt at 300 K', () => {
+    // Incropera & DeWitt, Fundamentals of Heat and Mass Transfer, Table A.4, 300 K: mu = 184.6e-7 N s/m^2 (from memory).
+    near(sutherlandViscosity(300), 184.6e-7, 0.05e-7);
+  });
+});
+
+describe('dry air density at one atmosphere', () => {
+  // Cengel & Cimbala, Fluid Mechanics, Table A-9 "Properties of air at 1 atm pressure" (p. 948).
+  // Tolerance: half a unit of the printed last digit. The 10 °C entry (1.246) is left out:
+  // the ideal-gas value there is 1.2466, which the table's rounding does not reach.
+  const cengelA9 = [
+    { t: 0, rho: 1.292 },
+    { t: 15, rho: 1.225 },
+    { t: 20, rho: 1.204 },
+    { t: 25, rho: 1.184 },
+    { t: 30, rho: 1.164 },
+  ];
+  for (const row of cengelA9) {
+    it(`${row.t} °C: rho = ${row.rho} kg/m^3 (Cengel Table A-9)`, () => {
+      near(airProperties(row.t + 273.15, 101325, 0).rho, row.rho, 0.0005);
+    });
+  }
+});
+
+describe('humid air by partial pressures', () => {
+  it('follows Dalton’s law with the IF97 saturation pressure at 300 K', () => {
+    // p_sat(300 K) = 3.53658941e-3 MPa: IAPWS-IF97 (R7-97(2012)) Table 35 check value (from memory).
+    const pSat = 3536.58941;
+    const RH = 0.5;
+    const p = 101325;
+    const T = 300;
+    const pv = RH * pSat;
+    const expected = (p - pv) / ((R_STAR / M_AIR) * T) + pv / ((R_STAR / 18.01528) * T);
+    near(airProperties(T, p, RH).rho, expected, expected * 1e-8);
+  });
+
+  it('is lighter than dry air at the same temperature and pressure', () => {
+    expect(airProperties(303.15, 101325, 0.8).rho).toBeLessThan(airProperties(303.15, 101325, 0).rho);
+  });
+});
+
+describe('air() as a worksheet function', () => {
+  it('returns a fluid record whose fields carry units', () => {
+    const { value } = call('air', { T: shown(15, 'degC'), p: si(101325, 'Pa'), RH: shown(0, '%') });
+    const r = asRecord(value);
+    expect(r.tag).toBe('fluid');
+    expect([...r.fields.keys()]).toEqual(['rho', 'mu', 'nu', 'a', 'T', 'p']);
+    // Sea-level standard values (USSA-1976; PDAS table): rho 1.2250, a 340.294 (stdatm.m).
+    near(field(value, 'rho'), 1.225, 0.00005);
+    near(field(value, 'a'), 340.294, 0.0005);
+    near(field(value, 'T'), 288.15, 1e-9);
+  });
+
+  it('says what humid air neglects', () => {
+    const { value } = call('air', { T: shown(28, 'degC'), p: si(101325, 'Pa'), RH: shown(60, '%') });
+    expect(asRecord(value).remarks.join(' ')).toMatch(/Neglected/);
+  });
+
+  it('refuses a temperature below absolute zero', () => {
+    expect(() => call('air', { T: shown(-300, 'degC'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(/−300 °C is below absolute zero/);
+  });
+
+  it('refuses a length where a temperature belongs', () => {
+    expect(() => call('air', { T: si(5, 'm'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(TradeError);
+  });
+
+  it('refuses a humidity written without its % sign', () => {
+    expect(() => call('air', { T: shown(20, 'degC'), p: si(101325, 'Pa'), RH: si(60) })).toThrow(/RH: 60 %/);
+  });
+
+  it('refuses humid air below 0 °C, where the saturation formula does not apply', () => {
+    expect(() => call('air', { T: shown(-10, 'degC'), p: si(101325, 'Pa'), RH: shown(80, '%') })).toThrow(/0 to 100 °C/);
+  });
+
+  it('refuses a pressure of zero', () => {
+    expect(() => airProperties(288.15, 0, 0)).toThrow(TradeError);
+  });
+
+  it('names a missing temperature', () => {
+    expect(() => call('air', { p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(/missing argument T/);
+  });
+});
