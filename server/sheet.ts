@@ -1,24 +1,27 @@
-// TEMPORARY STUB: the real pipeline (read → parse → evaluate → render) replaces
-// this file's body; the exported signature stays.
-import { marked } from 'marked';
+// renderSheet: the library entry. One call evaluates and renders a sheet in
+// this process (interpreter limits apply); the server and CLI run the same
+// pipeline inside the sandbox child instead.
+import { SheetSession, type SheetCore } from './session.js';
+import { pageHtml } from './render/page.js';
+import { standaloneCss } from './render/assets.js';
 import type { RenderOptions, SheetResult } from './sheet-types.js';
 
-export async function renderSheet(text: string, _opts: RenderOptions = {}): Promise<SheetResult> {
-  const t0 = performance.now();
-  const body = marked.parse(text, { async: false });
-  const parts = [{ key: 't0', html: body }];
-  const summaryHtml = '<section class="ws-summary">stub</section>';
-  return {
-    title: 'stub',
-    meta: {},
-    html: `<!doctype html><html><body>${summaryHtml}<main>${body}</main></body></html>`,
-    parts,
-    summaryHtml,
-    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, errors: 0 },
-    values: {},
-    checks: [],
-    errors: [],
-    reads: [],
-    elapsedMs: performance.now() - t0,
-  };
+/** Frame a rendered sheet as one self-contained HTML document. */
+export function standalonePage(core: SheetCore): string {
+  return pageHtml({
+    title: core.title,
+    meta: core.meta,
+    summaryHtml: core.summaryHtml,
+    parts: core.parts,
+    caution: core.caution,
+    head: `<style>${standaloneCss()}</style>`,
+  });
+}
+
+export function withPage(core: SheetCore): SheetResult {
+  return { ...core, html: standalonePage(core) };
+}
+
+export async function renderSheet(text: string, opts: RenderOptions = {}): Promise<SheetResult> {
+  return withPage(new SheetSession().render(text, opts));
 }

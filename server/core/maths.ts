@@ -1,6 +1,6 @@
 // Basic maths for worksheets. Functions of plain numbers reject units; sqrt and
 // abs/min/max keep them. Trigonometric arguments are in radians (deg converts).
-import { divide, multiply, power, quantity, type Quantity } from '../units/quantity.js';
+import { power, quantity, type Quantity } from '../units/quantity.js';
 import { dimsEqual, isDimensionless } from '../units/dims.js';
 import { unitLabel } from '../units/labels.js';
 import { num } from './build.js';
@@ -100,7 +100,59 @@ export const mathsFunctions: TradeFunction[] = [
   unary('tan', 'tangent of an angle in radians', Math.tan, 'tan(45 deg)'),
   extremum('min'),
   extremum('max'),
+  {
+    name: 'linspace',
+    params: [
+      { name: 'start', type: 'quantity', doc: 'first value' },
+      { name: 'stop', type: 'quantity', doc: 'last value (same unit as start)' },
+      { name: 'count', type: 'quantity', unit: '1', default: '11', doc: 'number of values, 2 to 100000' },
+    ],
+    doc: 'evenly spaced values from start to stop, for sweeps',
+    source: 'definition',
+    example: 'linspace(10 m/s, 40 m/s, 4)',
+    compute(args) {
+      const a = q(args, 'start');
+      const b = q(args, 'stop');
+      const n = q(args, 'count').si;
+      if (!dimsEqual(a.dims, b.dims)) throw new TradeError(`start and stop must have the same unit (${unitLabel(a.dims)} and ${unitLabel(b.dims)})`);
+      if (!Number.isInteger(n) || n < 2 || n > 100_000) throw new TradeError(`count must be a whole number from 2 to 100000, not ${n}`);
+      const items: Value[] = [];
+      for (let i = 0; i < n; i++) items.push(quantity(a.si + ((b.si - a.si) * i) / (n - 1), a.dims, a.unit?.offset ? undefined : a.unit));
+      return { kind: 'list', items };
+    },
+  },
+  {
+    name: 'sum',
+    params: [{ name: 'values', type: 'list', doc: 'a list of numbers or quantities of one unit' }],
+    doc: 'the sum of a list',
+    source: 'definition',
+    example: 'sum([1, 2, 3] m)',
+    compute(args) {
+      return total(collect(args));
+    },
+  },
+  {
+    name: 'mean',
+    params: [{ name: 'values', type: 'list', doc: 'a list of numbers or quantities of one unit' }],
+    doc: 'the arithmetic mean of a list',
+    source: 'definition',
+    example: 'mean([1, 2, 3] m)',
+    compute(args) {
+      const items = collect(args);
+      if (items.length === 0) throw new TradeError('mean of an empty list');
+      const t = total(items);
+      return quantity(t.si / items.length, t.dims, t.unit);
+    },
+  },
 ];
 
-// Keep the helpers reachable for families that scale quantities.
-export { divide, multiply };
+function total(items: Quantity[]): Quantity {
+  if (items.length === 0) return num(0);
+  const dims = items[0]!.dims;
+  let s = 0;
+  for (const v of items) {
+    if (!dimsEqual(v.dims, dims)) throw new TradeError(`cannot add ${unitLabel(v.dims)} to ${unitLabel(dims)}`);
+    s += v.si;
+  }
+  return quantity(s, dims, items[0]!.unit?.offset ? undefined : items[0]!.unit);
+}

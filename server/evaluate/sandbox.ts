@@ -1,22 +1,166 @@
-// TEMPORARY STUB: the real sandbox evaluates in a warm forked child with a
-// capped heap and a time limit; the exported class keeps this shape.
-import { renderSheet } from '../sheet.js';
+// Evaluation outside the server's heap: a warm forked child with a capped
+// heap. A worker thread is not enough (some heap blow-ups abort the whole
+// process); a child that dies takes nothing with it. Requests queue one at a
+// time; a request that overruns its wall clock gets the child killed and a
+// fresh one started for the next request.
+import { fork, type ChildProcess } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+import { withPage } from '../sheet.js';
 import type { RenderOptions, SheetResult } from '../sheet-types.js';
+import { DEFAULT_LIMITS, type Limits } from './limits.js';
+import type { ChildReply, ChildRequest } from './sandbox-child.js';
 
 export interface SandboxOptions {
   /** Wall-clock limit per sheet (default 2000 ms). */
   timeoutMs?: number;
-  /** Heap cap of the child process in MiB. */
+  /** Heap cap of the child process in MiB (default 256). */
   heapMb?: number;
+  /** Interpreter limits; timeoutMs above overrides their time budget. */
+  limits?: Partial<Limits>;
 }
 
-export class Sandbox {
-  constructor(private readonly options: SandboxOptions = {}) {}
+export class SandboxError extends Error {
+  constructor(
+    readonly code: 'timeout' | 'memory' | 'crash',
+    message: string,
+  ) {
+    super(message);
+  }
+}
 
-  render(text: string, opts: RenderOptions): Promise<SheetResult> {
-    void this.options;
-    return renderSheet(text, opts);
+interface Pending {
+  req: ChildRequest;
+  resolve: (r: SheetResult) => void;
+  reject: (e: Error) => void;
+}
+
+const childPath = fileURLToPath(new URL(import.meta.url.endsWith('.ts') ? './sandbox-child.ts' : './sandbox-child.js', import.meta.url));
+
+export class Sandbox {
+  private child: ChildProcess | undefined;
+  private ready: Promise<void> | undefined;
+  private readonly queue: Pending[] = [];
+  private busy: Pending | undefined;
+  private timer: NodeJS.Timeout | undefined;
+  private nextId = 1;
+  private closed = false;
+  private readonly limits: Limits;
+  private readonly heapMb: number;
+
+  constructor(options: SandboxOptions = {}) {
+    this.limits = { ...DEFAULT_LIMITS, ...options.limits, timeoutMs: options.timeoutMs ?? options.limits?.timeoutMs ?? DEFAULT_LIMITS.timeoutMs };
+    this.heapMb = options.heapMb ?? 256;
   }
 
-  async close(): Promise<void> {}
+  render(text: string, opts: RenderOptions): Promise<SheetResult> {
+    if (this.closed) return Promise.reject(new Error('the sandbox is closed'));
+    return new Promise((resolve, reject) => {
+      this.queue.push({ req: { id: this.nextId++, text, opts, limits: this.limits }, resolve, reject });
+      void this.pump();
+    });
+  }
+
+  /** Start the child now, so the first sheet does not wait for it. */
+  warm(): Promise<void> {
+    return this.start();
+  }
+
+  private start(): Promise<void> {
+    if (this.ready) return this.ready;
+    const execArgv = [`--max-old-space-size=${this.heapMb}`, '--stack-size=2000'];
+    if (childPath.endsWith('.ts')) execArgv.push('--import', 'tsx');
+    const child = fork(childPath, [], { execArgv, stdio: ['ignore', 'ignore', 'pipe', 'ipc'], serialization: 'advanced' });
+    this.child = child;
+    let stderr = '';
+    child.stderr?.on('data', (d: Buffer) => {
+      stderr = (stderr + d.toString()).slice(-4000);
+    });
+    this.ready = new Promise((resolve, reject) => {
+      const onReady = (m: unknown) => {
+        if (m && typeof m === 'object' && 'ready' in m) {
+          child.off('message', onReady);
+          resolve();
+        }
+      };
+      child.on('message', onReady);
+      child.once('exit', () => reject(new SandboxError('crash', 'the evaluator could not start')));
+    });
+    this.ready.catch(() => {});
+    child.on('message', (m: ChildReply | { ready: true }) => {
+      if ('ready' in m) return;
+      this.finish(m);
+    });
+    child.on('exit', (code, signal) => {
+      if (this.child !== child) return;
+      this.child = undefined;
+      this.ready = undefined;
+      const job = this.busy;
+      if (job && !this.closed) {
+        this.busy = undefined;
+        clearTimeout(this.timer);
+        const oom = /heap out of memory|Allocation failed|JavaScript heap/i.test(stderr) || code === 134 || signal === 'SIGABRT';
+        job.reject(
+          oom
+            ? new SandboxError('memory', `the sheet used more than the ${this.heapMb} MiB memory limit; evaluation stopped`)
+            : new SandboxError('crash', `the evaluator stopped unexpectedly (${signal ?? `exit ${code}`})`),
+        );
+        void this.pump();
+      }
+    });
+    child.unref();
+    (child as unknown as { channel?: { unref(): void } }).channel?.unref();
+    return this.ready;
+  }
+
+  private async pump(): Promise<void> {
+    if (this.busy || this.queue.length === 0 || this.closed) return;
+    const job = this.queue.shift()!;
+    this.busy = job;
+    try {
+      await this.start();
+    } catch (e) {
+      this.busy = undefined;
+      job.reject(e as Error);
+      void this.pump();
+      return;
+    }
+    const child = this.child!;
+    (child as unknown as { channel?: { ref(): void } }).channel?.ref();
+    // The interpreter stops itself at the time budget; this is the backstop.
+    this.timer = setTimeout(() => {
+      if (this.busy !== job) return;
+      this.busy = undefined;
+      job.reject(new SandboxError('timeout', `evaluation took longer than ${this.limits.timeoutMs} ms and was stopped`));
+      this.kill();
+      void this.pump();
+    }, this.limits.timeoutMs + 500);
+    child.send(job.req);
+  }
+
+  private finish(m: ChildReply): void {
+    const job = this.busy;
+    if (!job || job.req.id !== m.id) return;
+    this.busy = undefined;
+    clearTimeout(this.timer);
+    if (this.queue.length === 0) (this.child as unknown as { channel?: { unref(): void } } | undefined)?.channel?.unref();
+    if (m.ok) job.resolve(withPage(m.core));
+    else job.reject(new SandboxError('crash', m.message));
+    void this.pump();
+  }
+
+  private kill(): void {
+    const child = this.child;
+    this.child = undefined;
+    this.ready = undefined;
+    child?.kill('SIGKILL');
+  }
+
+  async close(): Promise<void> {
+    this.closed = true;
+    clearTimeout(this.timer);
+    for (const job of this.queue.splice(0)) job.reject(new Error('the sandbox is closed'));
+    this.busy?.reject(new Error('the sandbox is closed'));
+    this.busy = undefined;
+    this.kill();
+  }
 }

@@ -54,11 +54,6 @@ export function describe(d: Dims): string {
   return isDimensionless(d) ? 'a plain number' : unitLabel(d);
 }
 
-function sameDims(a: Quantity, b: Quantity, verb: string): void {
-  if (!dimsEqual(a.dims, b.dims)) {
-    throw new UnitError(`cannot ${verb} ${describe(a.dims)} ${verb === 'add' ? 'to' : verb === 'subtract' ? 'from' : 'with'} ${describe(b.dims)}`);
-  }
-}
 
 /** The unit a sum keeps: the left operand's, unless it is an offset unit. */
 function sumUnit(a: Quantity, b: Quantity): Unit | undefined {
@@ -66,7 +61,7 @@ function sumUnit(a: Quantity, b: Quantity): Unit | undefined {
 }
 
 export function add(a: Quantity, b: Quantity): Quantity {
-  if (!dimsEqual(a.dims, b.dims)) throw new UnitError(`cannot add ${describe(b.dims)} to ${describe(a.dims)}`);
+  if (!dimsEqual(a.dims, b.dims)) throw new UnitError(`cannot add ${describe(a.dims)} to ${describe(b.dims)}`);
   if (a.absolute && b.absolute) {
     throw new UnitError('cannot add two absolute temperatures; subtract them for a difference, or add a difference in K');
   }
@@ -83,7 +78,7 @@ export function subtract(a: Quantity, b: Quantity): Quantity {
   }
   if (b.absolute && !a.absolute) throw new UnitError('cannot subtract an absolute temperature from a temperature difference');
   const unit = a.absolute ? a.unit : sumUnit(a, b);
-  return quantity(a.si - b.si, a.dims, unit?.offset ? unit : unit, a.absolute);
+  return quantity(a.si - b.si, a.dims, unit, a.absolute);
 }
 
 export function multiply(a: Quantity, b: Quantity): Quantity {
@@ -118,7 +113,7 @@ export function negate(a: Quantity): Quantity {
 }
 
 export function compare(a: Quantity, b: Quantity): number {
-  sameDims(a, b, 'compare');
+  if (!dimsEqual(a.dims, b.dims)) throw new UnitError(`cannot compare ${describe(a.dims)} with ${describe(b.dims)}`);
   return a.si - b.si;
 }
 

@@ -1,0 +1,39 @@
+// Bounds on one sheet's evaluation. The interpreter enforces them itself;
+// the sandbox's heap cap and wall clock are the outer guard.
+import { SheetError } from '../diagnostics.js';
+import type { Span } from '../parse/ast.js';
+
+export interface Limits {
+  /** Interpreter steps (nodes visited plus list elements touched) per sheet. */
+  maxSteps: number;
+  /** Longest list a sheet may build. */
+  maxListLength: number;
+  /** Wall-clock budget in milliseconds, checked as steps go by. */
+  timeoutMs: number;
+}
+
+export const DEFAULT_LIMITS: Limits = { maxSteps: 5_000_000, maxListLength: 100_000, timeoutMs: 2000 };
+
+export class Budget {
+  private steps = 0;
+  private readonly deadline: number;
+  constructor(readonly limits: Limits) {
+    this.deadline = Date.now() + limits.timeoutMs;
+  }
+
+  spend(n: number, span?: Span): void {
+    this.steps += n;
+    if (this.steps > this.limits.maxSteps) {
+      throw new SheetError('limit', `the sheet went past ${this.limits.maxSteps.toLocaleString('en')} evaluation steps`, span);
+    }
+    if ((this.steps & 0x3ff) < n && Date.now() > this.deadline) {
+      throw new SheetError('limit', `evaluation stopped after ${this.limits.timeoutMs} ms`, span);
+    }
+  }
+
+  checkLength(n: number, span?: Span): void {
+    if (n > this.limits.maxListLength) {
+      throw new SheetError('limit', `a list of ${n} items is longer than the limit of ${this.limits.maxListLength}`, span);
+    }
+  }
+}

@@ -1,0 +1,218 @@
+// Evaluates a sheet's statements in dependency order, reusing the previous
+// run's result for every statement whose text and inputs are unchanged.
+import { SheetError, type Diagnostic, diagnostic } from '../diagnostics.js';
+import type { Span, Statement } from '../parse/ast.js';
+import type { Registry, TradeFunction, CallContext } from '../core/registry.js';
+import type { Value } from '../core/values.js';
+import { parseExpression } from '../parse/index.js';
+import { quantity } from '../units/quantity.js';
+import { evaluate, type Scope } from './interpreter.js';
+import { namesUsed, orderDefinitions } from './graph.js';
+import { Budget, DEFAULT_LIMITS, type Limits } from './limits.js';
+
+export interface StatementResult {
+  readonly stmt: Statement;
+  value?: Value;
+  /** For checks: whether it held. */
+  passed?: boolean;
+  error?: Diagnostic;
+  /** Set when not evaluated because an input failed: the failed name. */
+  blockedBy?: string;
+  warnings: string[];
+  /** Names the statement reads, in order of appearance. */
+  readonly uses: readonly string[];
+  /** Whether this run computed it afresh (false: reused from the last run). */
+  fresh: boolean;
+}
+
+export interface EvalOptions {
+  registry: Registry;
+  limits?: Limits;
+  /** Reads a data file relative to the project; throws SheetError('data-file') when it may not. */
+  readData?: (relativePath: string) => string;
+  cache?: EvalCache;
+  /** Names whose definition line could not be parsed, with that line: their users are blocked. */
+  failedNames?: ReadonlyMap<string, number>;
+}
+
+interface CacheEntry {
+  inputs: Value[];
+  value?: Value;
+  error?: SheetError;
+  warnings: string[];
+  reads: Array<{ path: string; text: string }>;
+}
+
+/** Results of earlier runs, keyed by statement text; one per sheet. */
+export class EvalCache {
+  entries = new Map<string, CacheEntry>();
+  /** Parameter defaults: evaluated once, they never change. */
+  readonly defaults = new Map<string, Value>();
+}
+
+const CONSTANTS: ReadonlyMap<string, Value> = new Map([['pi', quantity(Math.PI)]]);
+
+export interface SheetEvaluation {
+  results: StatementResult[];
+  values: Map<string, Value>;
+  /** Data files read (relative paths). */
+  reads: string[];
+  /** Statements computed afresh in this run. */
+  freshCount: number;
+}
+
+function keyOf(s: Statement): string {
+  return `${s.type}\u0000${s.source}`;
+}
+
+export function evaluateSheet(statements: readonly Statement[], opts: EvalOptions): SheetEvaluation {
+  const cache = opts.cache ?? new EvalCache();
+  const budget = new Budget(opts.limits ?? DEFAULT_LIMITS);
+  const results = statements.map<StatementResult>((stmt) => ({
+    stmt,
+    warnings: [],
+    uses: [...new Set(namesUsed(stmt.expr).map((u) => u.name))],
+    fresh: false,
+  }));
+  const defs = new Map<string, StatementResult>();
+  for (const r of results) {
+    if (r.stmt.type !== 'define') continue;
+    const first = defs.get(r.stmt.name);
+    if (first) {
+      r.error = {
+        ...diagnostic(new SheetError('redefined', `"${r.stmt.name}" is already defined on line ${first.stmt.line}; a name is defined once`, r.stmt.nameSpan), r.stmt.line),
+        related: [first.stmt.line],
+      };
+      continue;
+    }
+    defs.set(r.stmt.name, r);
+  }
+
+  const deps = new Map([...defs].map(([n, r]) => [n, r.uses]));
+  const { order, cycles } = orderDefinitions(new Map([...defs].map(([n, r]) => [n, r.stmt])), deps);
+  for (const [name, cycle] of cycles) {
+    const r = defs.get(name)!;
+    const stmt = r.stmt as Extract<Statement, { type: 'define' }>;
+    r.error = diagnostic(new SheetError('cycle', `these definitions depend on each other in a circle: ${cycle.join(' → ')}`, stmt.nameSpan), stmt.line);
+  }
+
+  const values = new Map<string, Value>();
+  const failed = new Map<string, string>(); // name → root cause name
+  const broken = opts.failedNames ?? new Map<string, number>();
+  for (const name of broken.keys()) if (!defs.has(name)) failed.set(name, name);
+  const reads = new Set<string>();
+  let freshCount = 0;
+
+  const used = new Set<string>();
+  const run = (r: StatementResult) => {
+    if (r.error) return;
+    for (const u of namesUsed(r.stmt.expr)) {
+      if (defs.has(u.name) || CONSTANTS.has(u.name) || broken.has(u.name)) continue;
+      r.error = diagnostic(new SheetError('unknown-name', `\`${u.name}\` is not defined (line ${u.span.line})`, u.span), r.stmt.line);
+      return;
+    }
+    const blocked = r.uses.find((n) => failed.has(n));
+    if (blocked) {
+      r.blockedBy = failed.get(blocked);
+      return;
+    }
+    const inputs = r.uses.map((n) => values.get(n) ?? CONSTANTS.get(n)!);
+    const key = keyOf(r.stmt);
+    used.add(key);
+    const hit = cache.entries.get(key);
+    if (hit && sameInputs(hit.inputs, inputs) && readsUnchanged(hit.reads, opts.readData)) {
+      r.value = hit.value;
+      if (hit.error) r.error = diagnostic(hit.error, r.stmt.line);
+      r.warnings = hit.warnings;
+      hit.reads.forEach((x) => reads.add(x.path));
+      return;
+    }
+    const entry: CacheEntry = { inputs, warnings: [], reads: [] };
+    const scope = makeScope(opts, budget, values, cache, entry);
+    try {
+      entry.value = evaluate(r.stmt.expr, scope);
+    } catch (e) {
+      if (!(e instanceof SheetError)) throw e;
+      entry.error = e;
+      r.error = diagnostic(e, r.stmt.line);
+    }
+    r.value = entry.value;
+    r.warnings = entry.warnings;
+    r.fresh = true;
+    freshCount++;
+    entry.reads.forEach((x) => reads.add(x.path));
+    // Limit errors depend on the whole run, not on this statement: never cache them.
+    if (entry.error?.code !== 'limit') cache.entries.set(key, entry);
+  };
+
+  for (const name of order) {
+    const r = defs.get(name)!;
+    run(r);
+    const stmt = r.stmt as Extract<Statement, { type: 'define' }>;
+    if (r.error || r.blockedBy) failed.set(name, r.blockedBy ?? name);
+    else values.set(stmt.name, r.value!);
+  }
+  for (const r of results) {
+    if (r.stmt.type === 'define') continue;
+    run(r);
+    if (r.stmt.type === 'check' && r.value) {
+      if (r.value.kind === 'bool') r.passed = r.value.value;
+      else if (r.value.kind === 'list' && r.value.items.every((v) => v.kind === 'bool')) {
+        r.passed = r.value.items.every((v) => v.kind === 'bool' && v.value);
+      } else {
+        r.error = diagnostic(new SheetError('type', 'a check needs a comparison or another true/false value', r.stmt.expr.span), r.stmt.line);
+      }
+    }
+  }
+  // Forget statements that left the sheet, so the cache follows the file.
+  for (const key of cache.entries.keys()) if (!used.has(key)) cache.entries.delete(key);
+  return { results, values, reads: [...reads], freshCount };
+}
+
+function sameInputs(a: Value[], b: Value[]): boolean {
+  return a.length === b.length && a.every((v, i) => v === b[i]);
+}
+
+function readsUnchanged(readsBefore: CacheEntry['reads'], readData?: (p: string) => string): boolean {
+  if (readsBefore.length === 0) return true;
+  if (!readData) return false;
+  try {
+    return readsBefore.every((r) => readData(r.path) === r.text);
+  } catch {
+    return false;
+  }
+}
+
+function makeScope(opts: EvalOptions, budget: Budget, values: Map<string, Value>, cache: EvalCache, entry: CacheEntry): Scope {
+  const context: CallContext = {
+    readData(path) {
+      if (!opts.readData) throw new SheetError('data-file', 'this sheet cannot read data files here');
+      const text = opts.readData(path);
+      entry.reads.push({ path, text });
+      return text;
+    },
+    warn(message) {
+      entry.warnings.push(message);
+    },
+  };
+  const scope: Scope = {
+    registry: opts.registry,
+    budget,
+    context,
+    lookup(name: string, span: Span): Value {
+      const v = values.get(name) ?? CONSTANTS.get(name);
+      if (!v) throw new SheetError('unknown-name', `\`${name}\` is not defined (line ${span.line})`, span);
+      return v;
+    },
+    defaultOf(fn: TradeFunction, param: string): Value {
+      const key = `${fn.name}.${param}`;
+      const hit = cache.defaults.get(key);
+      if (hit) return hit;
+      const spec = fn.params.find((p) => p.name === param)!;
+      const v = evaluate(parseExpression(spec.default!), { ...scope, lookup: () => { throw new Error(`default of ${key} uses a name`); } });
+      cache.defaults.set(key, v);
+      return v;
+    },
+  };
+  return scope;
+}

@@ -1,0 +1,45 @@
+// The statement and expression trees of a `basis` block. Every node carries
+// its place in the worksheet file (1-based line, 1-based columns).
+import type { Unit } from '../units/unit-expr.js';
+
+export interface Span {
+  readonly line: number;
+  readonly col: number;
+  /** Column just past the node. */
+  readonly end: number;
+}
+
+export interface UnitNode {
+  readonly unit: Unit;
+  readonly span: Span;
+}
+
+export type Expr =
+  | { readonly type: 'number'; readonly value: number; readonly unit?: UnitNode; readonly span: Span }
+  | { readonly type: 'string'; readonly value: string; readonly span: Span }
+  | { readonly type: 'bool'; readonly value: boolean; readonly span: Span }
+  | { readonly type: 'name'; readonly name: string; readonly span: Span }
+  | { readonly type: 'unary'; readonly op: '-' | '+' | 'not'; readonly arg: Expr; readonly span: Span }
+  | { readonly type: 'binary'; readonly op: BinaryOp; readonly left: Expr; readonly right: Expr; readonly span: Span }
+  | { readonly type: 'compare'; readonly ops: readonly CompareOp[]; readonly operands: readonly Expr[]; readonly span: Span }
+  | { readonly type: 'call'; readonly callee: string; readonly calleeSpan: Span; readonly args: readonly Arg[]; readonly span: Span }
+  | { readonly type: 'field'; readonly object: Expr; readonly field: string; readonly span: Span }
+  | { readonly type: 'list'; readonly items: readonly Expr[]; readonly unit?: UnitNode; readonly span: Span }
+  | { readonly type: 'convert'; readonly expr: Expr; readonly unit: UnitNode; readonly span: Span }
+  | { readonly type: 'paren'; readonly expr: Expr; readonly span: Span };
+
+export type BinaryOp = '+' | '-' | '*' | '/' | '^' | 'and' | 'or';
+export type CompareOp = '<' | '<=' | '>' | '>=' | '==' | '!=';
+
+export interface Arg {
+  readonly name?: string;
+  readonly value: Expr;
+  readonly span: Span;
+}
+
+export type Statement =
+  | { readonly type: 'define'; readonly name: string; readonly nameSpan: Span; readonly expr: Expr; readonly description?: string; readonly line: number; readonly source: string }
+  | { readonly type: 'check'; readonly expr: Expr; readonly label?: string; readonly line: number; readonly source: string }
+  | { readonly type: 'expr'; readonly expr: Expr; readonly description?: string; readonly line: number; readonly source: string };
+
+export type StatementType = Statement['type'];

@@ -1,0 +1,276 @@
+// Recursive-descent parser for one statement line. Precedence, loosest first:
+// or, and, not, comparison (chainable), `to`, + -, * /, unary -, ^, postfix
+// (call, .field), atoms. Units after numbers are parsed in their own namespace.
+import { SheetError } from '../diagnostics.js';
+import type { Arg, CompareOp, Expr, Span, Statement } from './ast.js';
+import { lex, type Token } from './lexer.js';
+import { KEYWORDS, parseUnitExpr, unitStarts, type TokenCursor } from './units.js';
+
+const COMPARE = new Set(['<', '<=', '>', '>=', '==', '!=']);
+
+class Cursor implements TokenCursor {
+  private i = 0;
+  constructor(private readonly tokens: Token[]) {}
+  peek(offset = 0): Token {
+    return this.tokens[Math.min(this.i + offset, this.tokens.length - 1)]!;
+  }
+  next(): Token {
+    const t = this.peek();
+    if (this.i < this.tokens.length - 1) this.i++;
+    return t;
+  }
+  last(): Token {
+    return this.tokens[Math.max(0, this.i - 1)]!;
+  }
+  at(text: string): boolean {
+    const t = this.peek();
+    return (t.type === 'op' || t.type === 'ident') && t.text === text;
+  }
+  expect(text: string, what: string): Token {
+    if (!this.at(text)) throw unexpected(this.peek(), what);
+    return this.next();
+  }
+}
+
+function unexpected(t: Token, expected: string): SheetError {
+  const found = t.type === 'eof' ? 'the end of the line' : `"${t.text}"`;
+  return new SheetError('syntax', `expected ${expected}, found ${found}`, t.span);
+}
+
+function join(a: Span, b: Span): Span {
+  return { line: a.line, col: a.col, end: b.end };
+}
+
+/** Parse one statement line; returns null for blank and comment lines. */
+export function parseStatement(text: string, line: number, col0 = 1): Statement | null {
+  const tokens = lex(text, line, col0);
+  const comment = tokens.find((t) => t.type === 'comment');
+  const body = tokens.filter((t) => t.type !== 'comment');
+  if (body.length === 1) return null; // only eof: blank or comment line
+  const c = new Cursor(body);
+  const source = (comment ? text.slice(0, comment.span.col - col0) : text).trim();
+  const description = comment?.text || undefined;
+  const first = c.peek();
+  if (first.type === 'ident' && first.text === 'check' && c.peek(1).text !== '=') {
+    c.next();
+    const expr = parseExpr(c);
+    let label: string | undefined;
+    if (c.peek().type === 'string') label = c.next().value as string;
+    end(c);
+    return withOptional<Statement>({ type: 'check', expr, line, source }, 'label', label ?? description);
+  }
+  if (first.type === 'ident' && c.peek(1).text === '=' ) {
+    if (KEYWORDS.has(first.text)) throw new SheetError('syntax', `"${first.text}" is a keyword and cannot be a name`, first.span);
+    c.next();
+    c.next();
+    if (c.peek().type === 'eof') throw unexpected(c.peek(), `a value after "${first.text} ="`);
+    const expr = parseExpr(c);
+    end(c);
+    return withOptional<Statement>({ type: 'define', name: first.text, nameSpan: first.span, expr, line, source }, 'description', description);
+  }
+  const expr = parseExpr(c);
+  end(c);
+  return withOptional<Statement>({ type: 'expr', expr, line, source }, 'description', description);
+}
+
+function withOptional<T extends object>(obj: T, key: string, value: string | undefined): T {
+  if (value !== undefined) (obj as Record<string, unknown>)[key] = value;
+  return obj;
+}
+
+function end(c: Cursor): void {
+  const t = c.peek();
+  if (t.type !== 'eof') {
+    if (t.type === 'ident' && c.last().type === 'number') {
+      throw new SheetError('unknown-unit', `"${t.text}" is not a known unit`, t.span);
+    }
+    throw unexpected(t, 'an operator or the end of the line');
+  }
+}
+
+/** Parse a standalone expression (inline `=…` values, defaults of parameters). */
+export function parseExpression(text: string, line = 1, col0 = 1): Expr {
+  const c = new Cursor(lex(text, line, col0).filter((t) => t.type !== 'comment'));
+  const e = parseExpr(c);
+  end(c);
+  return e;
+}
+
+function parseExpr(c: Cursor): Expr {
+  return parseOr(c);
+}
+
+function parseOr(c: Cursor): Expr {
+  let left = parseAnd(c);
+  while (c.at('or')) {
+    c.next();
+    const right = parseAnd(c);
+    left = { type: 'binary', op: 'or', left, right, span: join(left.span, right.span) };
+  }
+  return left;
+}
+
+function parseAnd(c: Cursor): Expr {
+  let left = parseNot(c);
+  while (c.at('and')) {
+    c.next();
+    const right = parseNot(c);
+    left = { type: 'binary', op: 'and', left, right, span: join(left.span, right.span) };
+  }
+  return left;
+}
+
+function parseNot(c: Cursor): Expr {
+  if (c.at('not')) {
+    const t = c.next();
+    const arg = parseNot(c);
+    return { type: 'unary', op: 'not', arg, span: join(t.span, arg.span) };
+  }
+  return parseCompare(c);
+}
+
+function parseCompare(c: Cursor): Expr {
+  const first = parseConvert(c);
+  const ops: CompareOp[] = [];
+  const operands: Expr[] = [first];
+  while (c.peek().type === 'op' && COMPARE.has(c.peek().text)) {
+    ops.push(c.next().text as CompareOp);
+    operands.push(parseConvert(c));
+  }
+  if (ops.length === 0) return first;
+  return { type: 'compare', ops, operands, span: join(first.span, operands[operands.length - 1]!.span) };
+}
+
+function parseConvert(c: Cursor): Expr {
+  let e = parseAdditive(c);
+  while (c.at('to')) {
+    c.next();
+    if (!unitStarts(c)) throw unexpected(c.peek(), 'a unit after "to"');
+    const unit = parseUnitExpr(c);
+    e = { type: 'convert', expr: e, unit, span: join(e.span, unit.span) };
+  }
+  return e;
+}
+
+function parseAdditive(c: Cursor): Expr {
+  let left = parseMultiplicative(c);
+  while (c.at('+') || c.at('-')) {
+    const op = c.next().text as '+' | '-';
+    const right = parseMultiplicative(c);
+    left = { type: 'binary', op, left, right, span: join(left.span, right.span) };
+  }
+  return left;
+}
+
+function parseMultiplicative(c: Cursor): Expr {
+  let left = parseUnary(c);
+  while (c.at('*') || c.at('/') || c.at('·')) {
+    const t = c.next().text;
+    const op = t === '/' ? '/' : '*';
+    const right = parseUnary(c);
+    left = { type: 'binary', op, left, right, span: join(left.span, right.span) };
+  }
+  return left;
+}
+
+function parseUnary(c: Cursor): Expr {
+  if (c.at('-') || c.at('+')) {
+    const t = c.next();
+    const arg = parseUnary(c);
+    return { type: 'unary', op: t.text as '-' | '+', arg, span: join(t.span, arg.span) };
+  }
+  return parsePower(c);
+}
+
+function parsePower(c: Cursor): Expr {
+  const base = parsePostfix(c);
+  if (c.at('^')) {
+    c.next();
+    const exponent = parseUnary(c); // right-associative; 2^-1 allowed
+    return { type: 'binary', op: '^', left: base, right: exponent, span: join(base.span, exponent.span) };
+  }
+  return base;
+}
+
+function parsePostfix(c: Cursor): Expr {
+  let e = parseAtom(c);
+  while (c.at('.')) {
+    c.next();
+    const t = c.next();
+    if (t.type !== 'ident') throw unexpected(t, 'a field name after "."');
+    e = { type: 'field', object: e, field: t.text, span: join(e.span, t.span) };
+  }
+  return e;
+}
+
+function parseAtom(c: Cursor): Expr {
+  const t = c.peek();
+  if (t.type === 'number') {
+    c.next();
+    if (unitStarts(c)) {
+      const unit = parseUnitExpr(c);
+      return { type: 'number', value: t.value as number, unit, span: join(t.span, unit.span) };
+    }
+    return { type: 'number', value: t.value as number, span: t.span };
+  }
+  if (t.type === 'string') {
+    c.next();
+    return { type: 'string', value: t.value as string, span: t.span };
+  }
+  if (t.type === 'ident') {
+    if (t.text === 'true' || t.text === 'false') {
+      c.next();
+      return { type: 'bool', value: t.text === 'true', span: t.span };
+    }
+    if (KEYWORDS.has(t.text)) throw unexpected(t, 'a value');
+    c.next();
+    if (c.at('(')) return parseCall(c, t);
+    return { type: 'name', name: t.text, span: t.span };
+  }
+  if (c.at('(')) {
+    c.next();
+    const inner = parseExpr(c);
+    const close = c.expect(')', 'a closing ")"');
+    return { type: 'paren', expr: inner, span: join(t.span, close.span) };
+  }
+  if (c.at('[')) {
+    c.next();
+    const items: Expr[] = [];
+    while (!c.at(']')) {
+      items.push(parseExpr(c));
+      if (!c.at(']')) c.expect(',', 'a "," or "]" in the list');
+    }
+    const close = c.next();
+    const span = join(t.span, close.span);
+    if (unitStarts(c)) {
+      const unit = parseUnitExpr(c);
+      return { type: 'list', items, unit, span: join(span, unit.span) };
+    }
+    return { type: 'list', items, span };
+  }
+  throw unexpected(t, 'a value');
+}
+
+function parseCall(c: Cursor, callee: Token): Expr {
+  c.next(); // (
+  const args: Arg[] = [];
+  let named = false;
+  while (!c.at(')')) {
+    const start = c.peek();
+    if (start.type === 'eof') throw unexpected(start, `")" to close ${callee.text}(`);
+    if (start.type === 'ident' && c.peek(1).text === ':') {
+      c.next();
+      c.next();
+      const value = parseExpr(c);
+      args.push({ name: start.text, value, span: join(start.span, value.span) });
+      named = true;
+    } else {
+      const value = parseExpr(c);
+      if (named) throw new SheetError('syntax', 'a positional argument cannot follow a named one', value.span);
+      args.push({ value, span: value.span });
+    }
+    if (!c.at(')')) c.expect(',', `"," or ")" in the call to ${callee.text}`);
+  }
+  const close = c.next();
+  return { type: 'call', callee: callee.text, calleeSpan: callee.span, args, span: join(callee.span, close.span) };
+}

@@ -1,0 +1,91 @@
+// Splits a sheet into prose and `basis` blocks, keeping each block's file
+// lines. marked's top-level tokens tile the (LF-normalised) text exactly, so
+// summing their raw lengths gives every block's offset.
+import { Lexer, type Token, type TokensList } from 'marked';
+
+export interface BlockLine {
+  /** 1-based line in the file. */
+  line: number;
+  /** 1-based column where `text` starts. */
+  col: number;
+  text: string;
+}
+
+export type Segment =
+  | { kind: 'prose'; tokens: Token[]; firstLine: number; raw: string }
+  | { kind: 'block'; fenceLine: number; lines: BlockLine[] };
+
+export interface Segmented {
+  segments: Segment[];
+  /** Link definitions, needed when prose is rendered piece by piece. */
+  links: TokensList['links'];
+}
+
+export function normaliseNewlines(text: string): string {
+  return text.replace(/\r\n?/g, '\n');
+}
+
+function isBasisFence(t: Token): t is Token & { type: 'code'; lang: string; raw: string } {
+  return t.type === 'code' && typeof (t as { lang?: string }).lang === 'string' && (t as { lang: string }).lang.trim().split(/\s+/)[0] === 'basis';
+}
+
+export function segment(text: string): Segmented {
+  const tokens = new Lexer({ gfm: true }).lex(text);
+  const segments: Segment[] = [];
+  let offset = 0;
+  let line = 1;
+  let prose: Token[] = [];
+  let proseLine = 1;
+  let proseRaw = '';
+  const flush = () => {
+    if (prose.length) segments.push({ kind: 'prose', tokens: prose, firstLine: proseLine, raw: proseRaw });
+    prose = [];
+    proseRaw = '';
+  };
+  for (const t of tokens) {
+    const raw = t.raw;
+    if (isBasisFence(t)) {
+      flush();
+      segments.push({ kind: 'block', fenceLine: line + leadingNewlines(raw), lines: blockLines(raw, line) });
+    } else {
+      if (prose.length === 0) proseLine = line;
+      prose.push(t);
+      proseRaw += raw;
+    }
+    offset += raw.length;
+    line += countNewlines(raw);
+  }
+  flush();
+  void offset;
+  return { segments, links: tokens.links };
+}
+
+function countNewlines(s: string): number {
+  let n = 0;
+  for (let i = 0; i < s.length; i++) if (s.charCodeAt(i) === 10) n++;
+  return n;
+}
+
+function leadingNewlines(raw: string): number {
+  let n = 0;
+  while (raw[n] === '\n') n++;
+  return n;
+}
+
+/** The content lines of a fenced block, with their file positions. */
+function blockLines(raw: string, startLine: number): BlockLine[] {
+  const all = raw.split('\n');
+  let first = 0;
+  while (first < all.length && all[first]!.trim() === '') first++;
+  const fence = all[first]!;
+  const indent = fence.length - fence.trimStart().length;
+  const marker = fence.trimStart().slice(0, 3);
+  const out: BlockLine[] = [];
+  for (let i = first + 1; i < all.length; i++) {
+    const textLine = all[i]!;
+    if (textLine.trimStart().startsWith(marker) && textLine.trim().replace(/[`~]/g, '') === '') break;
+    const strip = Math.min(indent, textLine.length - textLine.trimStart().length);
+    out.push({ line: startLine + i, col: strip + 1, text: textLine.slice(strip) });
+  }
+  return out;
+}

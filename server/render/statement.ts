@@ -1,0 +1,151 @@
+// One statement as HTML: inputs as name = value, results as formula =
+// substituted values = result, checks with a pass/fail mark, errors boxed.
+import type { Expr, Statement } from '../parse/ast.js';
+import type { Value } from '../core/values.js';
+import type { StatementResult } from '../evaluate/sheet-eval.js';
+import { attrs, esc } from './html.js';
+import { mathHtml } from './katex.js';
+import { exprLatex, valueLatex } from './latex.js';
+import { symbolLatex } from './symbols.js';
+import { dataAttrs, valueHtml } from './values.js';
+
+export interface StatementView {
+  sig: number;
+  /** Values by name, for substituting into formulas. */
+  values: ReadonlyMap<string, Value>;
+}
+
+/** Literal inputs: a number (with unit), a list of them, text, true/false. */
+export function isLiteral(e: Expr): boolean {
+  if (e.type === 'number' || e.type === 'string' || e.type === 'bool') return true;
+  if (e.type === 'unary' && e.op === '-') return isLiteral(e.arg);
+  if (e.type === 'list') return e.items.every(isLiteral);
+  return false;
+}
+
+function hasNames(e: Expr): boolean {
+  switch (e.type) {
+    case 'name':
+    case 'field':
+      return true;
+    case 'unary':
+      return hasNames(e.arg);
+    case 'binary':
+      return hasNames(e.left) || hasNames(e.right);
+    case 'compare':
+      return e.operands.some(hasNames);
+    case 'call':
+      return e.args.some((a) => hasNames(a.value));
+    case 'list':
+      return e.items.some(hasNames);
+    case 'convert':
+    case 'paren':
+      return hasNames(e.expr);
+    default:
+      return false;
+  }
+}
+
+function valueOfFactory(view: StatementView) {
+  return (e: Expr): Value | undefined => {
+    if (e.type === 'name') return view.values.get(e.name);
+    if (e.type === 'field') {
+      const owner = valueOfFactory(view)(e.object);
+      return owner?.kind === 'record' ? owner.fields.get(e.field)?.value : undefined;
+    }
+    return undefined;
+  };
+}
+
+/** Does substituting values say more than the symbols (and stay readable)? */
+function substituted(e: Expr, view: StatementView): string | null {
+  if (!hasNames(e) || e.type === 'name' || e.type === 'field') return null;
+  if (e.type === 'call' && e.args.some((a) => a.value.type === 'name' && view.values.get(a.value.name)?.kind === 'record')) return null;
+  return exprLatex(e, { sig: view.sig, valueFor: valueOfFactory(view) });
+}
+
+function warningsHtml(r: StatementResult): string {
+  if (!r.warnings.length) return '';
+  return `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${esc(w)}</li>`).join('')}</ul>`;
+}
+
+function descHtml(d: string | undefined): string {
+  return d ? `<span class="ws-desc">${esc(d)}</span>` : '';
+}
+
+export function errorHtml(message: string, line: number, column: number, source?: string): string {
+  return `<div class="ws-error" role="alert"${attrs({ 'data-line': line, 'data-column': column })}><span class="ws-where">line ${line}, column ${column}</span> <span class="ws-message">${esc(message)}</span>${source ? `<code class="ws-source">${esc(source)}</code>` : ''}</div>`;
+}
+
+function blockedHtml(r: StatementResult): string {
+  return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: depends on <code>${esc(r.blockedBy!)}</code></div>`;
+}
+
+function resultLatexOrBlock(name: string, v: Value, view: StatementView): { inline?: string; block?: string } {
+  const tex = v.kind === 'quantity' || v.kind === 'bool' || v.kind === 'string' ? valueLatex(v, view.sig) : null;
+  if (tex) return { inline: tex };
+  return { block: valueHtml(name, v, view.sig) };
+}
+
+function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'define' }> }, view: StatementView): string {
+  const s = r.stmt;
+  const sym = symbolLatex(s.name);
+  const literal = isLiteral(s.expr);
+  const cls = literal ? 'ws-input' : 'ws-result';
+  const data = r.value && !r.error && !r.blockedBy ? dataAttrs(s.name, r.value) : attrs({ 'data-name': s.name, 'data-state': r.error ? 'error' : 'not-evaluated' });
+  const head = `<div class="ws-stmt ws-def ${cls}"${attrs({ 'data-line': s.line, id: `v-${s.name}` })}${data}`;
+  if (r.error) {
+    const formula = mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`);
+    return `${head}><div class="ws-formula">${formula}</div>${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
+  }
+  if (r.blockedBy) {
+    return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`)}</div>${blockedHtml(r)}</div>`;
+  }
+  const v = r.value!;
+  const { inline, block } = resultLatexOrBlock(s.name, v, view);
+  const parts: string[] = [sym];
+  if (!literal || !inline) parts.push(exprLatex(s.expr, { sig: view.sig }));
+  const subst = literal ? null : substituted(s.expr, view);
+  if (subst && subst !== parts[parts.length - 1]) parts.push(subst);
+  if (inline && (!literal || parts.length === 1)) parts.push(inline);
+  const dedup = parts.filter((p, i) => i === 0 || p !== parts[i - 1]);
+  const formula = mathHtml(dedup.join(' = '));
+  return `${head}><div class="ws-formula">${formula}${descHtml(s.description)}</div>${block ?? ''}${warningsHtml(r)}</div>`;
+}
+
+function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'check' }> }, view: StatementView): string {
+  const s = r.stmt;
+  const symbolic = exprLatex(s.expr, { sig: view.sig });
+  const subst = substituted(s.expr, view);
+  const formula = mathHtml(subst && subst !== symbolic ? `${symbolic} \\quad\\Longrightarrow\\quad ${subst}` : symbolic);
+  const label = s.label ? `<span class="ws-label">${esc(s.label)}</span>` : '';
+  if (r.error) return `<div class="ws-stmt ws-check ws-check-error"${attrs({ 'data-line': s.line })}>${formula}${label}${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
+  if (r.blockedBy) return `<div class="ws-stmt ws-check ws-check-blocked"${attrs({ 'data-line': s.line })}>${formula}${label}${blockedHtml(r)}</div>`;
+  const pass = r.passed === true;
+  const mark = pass ? '<span class="ws-mark" aria-label="passed">✓ pass</span>' : '<span class="ws-mark" aria-label="failed">✗ fail</span>';
+  return `<div class="ws-stmt ws-check ${pass ? 'pass' : 'fail'}"${attrs({ 'data-line': s.line, 'data-passed': String(pass) })}>${mark}<span class="ws-formula">${formula}</span>${label}${warningsHtml(r)}</div>`;
+}
+
+function exprHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'expr' }> }, view: StatementView): string {
+  const s = r.stmt;
+  const symbolic = exprLatex(s.expr, { sig: view.sig });
+  const name = s.source;
+  if (r.error) return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}>${mathHtml(symbolic)}${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
+  if (r.blockedBy) return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}>${mathHtml(symbolic)}${blockedHtml(r)}</div>`;
+  const v = r.value!;
+  const { inline, block } = resultLatexOrBlock(name, v, view);
+  const subst = substituted(s.expr, view);
+  const parts = [symbolic, ...(subst && subst !== symbolic ? [subst] : []), ...(inline && inline !== symbolic ? [inline] : [])];
+  return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}${inline ? dataAttrs(name, v) : ''}><div class="ws-formula">${mathHtml(parts.join(' = '))}${descHtml(s.description)}</div>${block ?? ''}${warningsHtml(r)}</div>`;
+}
+
+export function statementHtml(r: StatementResult, view: StatementView): string {
+  switch (r.stmt.type) {
+    case 'define':
+      return defineHtml(r as StatementResult & { stmt: Extract<Statement, { type: 'define' }> }, view);
+    case 'check':
+      return checkHtml(r as StatementResult & { stmt: Extract<Statement, { type: 'check' }> }, view);
+    case 'expr':
+      return exprHtml(r as StatementResult & { stmt: Extract<Statement, { type: 'expr' }> }, view);
+  }
+}

@@ -1,0 +1,284 @@
+// The pipeline for one sheet: read → parse → evaluate → render. A session
+// keeps the last run's results, so a save re-evaluates and re-renders only
+// the statements and parts whose inputs changed.
+import { basename, dirname, resolve } from 'node:path';
+import { SheetError, diagnostic, type Diagnostic } from './diagnostics.js';
+import { createRegistry, type Registry } from './core/index.js';
+import type { Value } from './core/values.js';
+import { parseExpression, parseStatement, type Statement } from './parse/index.js';
+import { EvalCache, evaluateSheet, type StatementResult } from './evaluate/sheet-eval.js';
+import { evaluate } from './evaluate/interpreter.js';
+import { Budget, DEFAULT_LIMITS, type Limits } from './evaluate/limits.js';
+import { splitFrontMatter } from './read/front-matter.js';
+import { normaliseNewlines, segment, type Segment } from './read/segments.js';
+import { dataReader, projectPath } from './read/data-files.js';
+import { statementHtml, errorHtml, isLiteral } from './render/statement.js';
+import { inlineValueSpans, proseHtml } from './render/prose.js';
+import { summaryHtml, type SummaryItem } from './render/page.js';
+import { displayText, valueHtml, valueJson } from './render/values.js';
+import { esc } from './render/html.js';
+import type { CheckJson, ErrorJson, RenderOptions, SheetPart, SheetResult, ValueJson } from './sheet-types.js';
+
+export interface SessionOptions {
+  registry?: Registry;
+  limits?: Limits;
+}
+
+interface Parsed {
+  /** Per block: its statements and its unparsable lines. */
+  blocks: Array<{ items: Array<Statement | Diagnostic>; fenceLine: number }>;
+}
+
+interface PartMemo {
+  html: string;
+  inputs: unknown[];
+}
+
+/** Everything but the standalone page, which the caller frames. */
+export type SheetCore = Omit<SheetResult, 'html'> & { caution: boolean };
+
+const DEFINE_HEAD = /^\s*([A-Za-z_µμ\u0370-\u03ff][A-Za-z0-9_\u0370-\u03ff]*)\s*=(?!=)/;
+
+export class SheetSession {
+  private readonly cache = new EvalCache();
+  private readonly parts = new Map<string, PartMemo>();
+  private readonly registry: Registry;
+  private readonly limits: Limits;
+
+  constructor(opts: SessionOptions = {}) {
+    this.registry = opts.registry ?? sharedRegistry();
+    this.limits = opts.limits ?? DEFAULT_LIMITS;
+  }
+
+  render(text: string, opts: RenderOptions = {}): SheetCore {
+    const t0 = performance.now();
+    const path = opts.path ? resolve(opts.path) : undefined;
+    const sheetDir = path ? dirname(path) : resolve(opts.root ?? '.');
+    const root = resolve(opts.root ?? sheetDir);
+    const { meta, body, problem } = splitFrontMatter(normaliseNewlines(text));
+    const sig = sigfigs(meta.sigfigs);
+    const { segments, links } = segment(body);
+
+    const parsed = parseBlocks(segments);
+    const statements: Statement[] = [];
+    const parseErrors: Diagnostic[] = [];
+    const failedNames = new Map<string, number>();
+    for (const b of parsed.blocks) {
+      for (const item of b.items) {
+        if ('type' in item) statements.push(item);
+        else parseErrors.push(item);
+      }
+    }
+    for (const d of parseErrors) {
+      const name = (d as Diagnostic & { name?: string }).name;
+      if (name) failedNames.set(name, d.line);
+    }
+    let reader: ((p: string) => string) | undefined;
+    const readerFor = (p: string) => {
+      reader ??= dataReader(root, sheetDir);
+      return reader(p);
+    };
+    const evaluation = evaluateSheet(statements, { registry: this.registry, limits: this.limits, readData: readerFor, cache: this.cache, failedNames });
+    const byLine = new Map(evaluation.results.map((r) => [r.stmt.line, r]));
+    const view = { sig, values: evaluation.values };
+
+    const out: SheetPart[] = [];
+    const checks: CheckJson[] = [];
+    const errors: ErrorJson[] = [];
+    const problems: SummaryItem[] = [];
+    if (problem) {
+      errors.push({ line: problem.line, column: 1, message: problem.message, code: 'syntax' });
+      problems.push({ line: problem.line, text: problem.message, kind: 'error' });
+    }
+    let blockIndex = 0;
+    let inputs = 0;
+    let results = 0;
+    segments.forEach((seg, i) => {
+      if (seg.kind === 'prose') {
+        out.push({ key: `t${i}`, html: this.prose(seg, links, view, `t${i}`, errors, problems, body) });
+        return;
+      }
+      const block = parsed.blocks[blockIndex++]!;
+      const htmlParts: string[] = [];
+      const memoInputs: unknown[] = [];
+      for (const item of block.items) {
+        if (!('type' in item)) {
+          htmlParts.push(`<div class="ws-stmt ws-broken" id="L${item.line}" data-line="${item.line}">${errorHtml(item.message, item.line, item.column, (item as Diagnostic & { source?: string }).source)}</div>`);
+          memoInputs.push(item.message, item.line, item.column);
+          continue;
+        }
+        const r = byLine.get(item.line)!;
+        memoInputs.push(...statementInputs(r, evaluation.values));
+      }
+      const key = `b${i}`;
+      const memo = this.parts.get(key);
+      let html: string;
+      if (memo && sameList(memo.inputs, memoInputs)) html = memo.html;
+      else {
+        for (const item of block.items) {
+          if ('type' in item) htmlParts.push(`<a id="L${item.line}" class="ws-anchor"></a>${statementHtml(byLine.get(item.line)!, view)}`);
+        }
+        html = `<div class="ws-block" data-fence-line="${block.fenceLine}">${orderByLine(htmlParts)}</div>`;
+        this.parts.set(key, { html, inputs: memoInputs });
+      }
+      out.push({ key, html });
+    });
+
+    for (const d of parseErrors) {
+      errors.push({ line: d.line, column: d.column, message: d.message, code: d.code });
+      problems.push({ line: d.line, text: d.message, kind: 'error' });
+    }
+    for (const r of evaluation.results) {
+      if (r.error) {
+        errors.push({ line: r.error.line, column: r.error.column, message: r.error.message, code: r.error.code });
+        problems.push({ line: r.stmt.line, text: r.error.message, kind: 'error' });
+      }
+      if (r.stmt.type === 'check' && r.passed !== undefined) {
+        checks.push({ line: r.stmt.line, passed: r.passed, text: r.stmt.label ?? r.stmt.source.replace(/^check\s+/, '') });
+        if (!r.passed) problems.push({ line: r.stmt.line, text: `check failed: ${r.stmt.label ?? r.stmt.source}`, kind: 'fail' });
+      }
+      if (r.stmt.type === 'define' && r.value) {
+        if (isLiteral(r.stmt.expr)) inputs++;
+        else results++;
+      } else if (r.stmt.type === 'expr' && r.value) results++;
+    }
+    errors.sort((a, b) => a.line - b.line || a.column - b.column);
+    problems.sort((a, b) => a.line - b.line);
+    const values: Record<string, ValueJson> = {};
+    for (const [name, v] of evaluation.values) values[name] = valueJson(v, sig);
+    const summary = { inputs, results, checksPassed: checks.filter((c) => c.passed).length, checksFailed: checks.filter((c) => !c.passed).length, errors: errors.length };
+    const title = meta.title ?? firstHeading(body) ?? (path ? basename(path, '.md') : 'Worksheet');
+    return {
+      title,
+      meta,
+      parts: out,
+      summaryHtml: summaryHtml(summary, problems),
+      summary,
+      values,
+      checks,
+      errors,
+      reads: evaluation.reads.map((p) => projectPath(root, sheetDir, p)),
+      elapsedMs: performance.now() - t0,
+      caution: [...evaluation.values.values()].some(needsCaution) || meta.caution === 'true',
+      freshStatements: evaluation.freshCount,
+    } as SheetCore;
+  }
+
+  private prose(seg: Extract<Segment, { kind: 'prose' }>, links: Parameters<typeof proseHtml>[1], view: { sig: number; values: ReadonlyMap<string, Value> }, key: string, errors: ErrorJson[], problems: SummaryItem[], body: string): string {
+    const memo = this.parts.get(key);
+    let base: string;
+    if (memo && memo.inputs[0] === seg.raw) base = memo.inputs[1] as string;
+    else {
+      base = proseHtml(seg.tokens, links);
+      this.parts.set(key, { html: base, inputs: [seg.raw, base] });
+    }
+    const spans = inlineValueSpans(base);
+    if (spans.length === 0) return base;
+    let html = base;
+    for (const s of spans) {
+      const line = lineOf(body, seg, s.expr);
+      html = html.replace(s.match, () => this.inlineValue(s.expr, line, view, errors, problems));
+    }
+    return html;
+  }
+
+  private inlineValue(exprText: string, line: number, view: { sig: number; values: ReadonlyMap<string, Value> }, errors: ErrorJson[], problems: SummaryItem[]): string {
+    try {
+      const e = parseExpression(exprText.trim(), line);
+      const v = evaluate(e, {
+        registry: this.registry,
+        budget: new Budget({ ...this.limits, maxSteps: 100_000 }),
+        context: { readData: () => { throw new SheetError('data-file', 'inline values cannot read data files'); }, warn: () => {} },
+        lookup: (name, span) => {
+          const x = view.values.get(name) ?? (name === 'pi' ? { kind: 'quantity', si: Math.PI, dims: [0, 0, 0, 0, 0, 0, 0] } as Value : undefined);
+          if (!x) throw new SheetError('unknown-name', `\`${name}\` has no value (line ${span.line})`, span);
+          return x;
+        },
+        defaultOf: () => { throw new SheetError('syntax', 'inline values cannot call functions with defaults'); },
+      });
+      if (v.kind === 'record' || v.kind === 'figure' || v.kind === 'table') return valueHtml(exprText.trim(), v, view.sig);
+      return `<span class="ws-inline"${dataOf(exprText.trim(), v)}>${esc(displayText(v, view.sig))}</span>`;
+    } catch (err) {
+      if (!(err instanceof SheetError)) throw err;
+      const d = diagnostic(err, line);
+      errors.push({ line, column: d.column, message: d.message, code: d.code });
+      problems.push({ line, text: d.message, kind: 'error' });
+      return `<span class="ws-inline ws-inline-error" title="${esc(d.message)}">=${esc(exprText)} ⚠ ${esc(d.message)}</span>`;
+    }
+  }
+}
+
+function dataOf(name: string, v: Value): string {
+  const a: Record<string, string> = { 'data-name': name };
+  if (v.kind === 'quantity') {
+    a['data-si'] = String(v.si);
+    a['data-unit'] = valueJson(v, 4).unit;
+  }
+  return Object.entries(a).map(([k, x]) => ` ${k}="${esc(x)}"`).join('');
+}
+
+function needsCaution(v: Value): boolean {
+  if (v.kind === 'record') return v.tag === 'caution' || [...v.fields.values()].some((f) => needsCaution(f.value));
+  if (v.kind === 'list') return v.items.some(needsCaution);
+  return false;
+}
+
+function statementInputs(r: StatementResult, values: ReadonlyMap<string, Value>): unknown[] {
+  return [r.stmt.line, r.stmt.source, r.value, r.error?.message, r.error?.column, r.blockedBy, r.warnings, ...r.uses.map((n) => values.get(n))];
+}
+
+function sameList(a: unknown[], b: unknown[]): boolean {
+  return a.length === b.length && a.every((x, i) => x === b[i] || (Array.isArray(x) && Array.isArray(b[i]) && x.length === 0 && (b[i] as unknown[]).length === 0));
+}
+
+function orderByLine(parts: string[]): string {
+  const line = (h: string) => Number(/data-line="(\d+)"/.exec(h)?.[1] ?? 0);
+  return [...parts].sort((a, b) => line(a) - line(b)).join('');
+}
+
+function parseBlocks(segments: Segment[]): Parsed {
+  const blocks: Parsed['blocks'] = [];
+  for (const seg of segments) {
+    if (seg.kind !== 'block') continue;
+    const items: Array<Statement | Diagnostic> = [];
+    for (const l of seg.lines) {
+      try {
+        const s = parseStatement(l.text, l.line, l.col);
+        if (s) items.push(s);
+      } catch (e) {
+        if (!(e instanceof SheetError)) throw e;
+        const d = diagnostic(e, l.line) as Diagnostic & { name?: string; source?: string };
+        const head = DEFINE_HEAD.exec(l.text);
+        if (head) d.name = head[1];
+        d.source = l.text.trim();
+        items.push(d);
+      }
+    }
+    blocks.push({ items, fenceLine: seg.fenceLine });
+  }
+  return { blocks };
+}
+
+function sigfigs(s: string | undefined): number {
+  const n = Number(s);
+  return Number.isInteger(n) && n >= 1 && n <= 15 ? n : 4;
+}
+
+function firstHeading(body: string): string | undefined {
+  return /^#\s+(.+)$/m.exec(body)?.[1]?.trim();
+}
+
+function lineOf(body: string, seg: Extract<Segment, { kind: 'prose' }>, expr: string): number {
+  const idx = seg.raw.indexOf('`=' + expr);
+  if (idx < 0) return seg.firstLine;
+  let n = seg.firstLine;
+  for (let i = 0; i < idx; i++) if (seg.raw.charCodeAt(i) === 10) n++;
+  void body;
+  return n;
+}
+
+let registry: Registry | undefined;
+function sharedRegistry(): Registry {
+  registry ??= createRegistry();
+  return registry;
+}
