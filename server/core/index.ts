@@ -2,8 +2,9 @@
 import { Registry, type TradeFunction } from './registry.js';
 import { mathsFunctions } from './maths.js';
 import { fluidFunctions } from './fluids/index.js';
+import { wallFunctions } from './wall/index.js';
 
-export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsFunctions, fluidFunctions];
+export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsFunctions, fluidFunctions, wallFunctions];
 
 export function createRegistry(): Registry {
   return new Registry(families.flat());

@@ -1,0 +1,124 @@
+import { describe, expect, it } from 'vitest';
+import { num, si, str } from '../../server/core/build.js';
+import { TradeError } from '../../server/core/registry.js';
+import { seriesSum, solveStack } from '../../server/core/wall/layer-stack.js';
+import { asRecord, call, relErr, siField } from './wall-helpers.js';
+
+// Finite geometric series (standard algebra): Σ_{i<n} y1 g^i = y1 (g^n − 1)/(g − 1); last term y1 g^(n−1).
+const seriesTotal = (y1: number, g: number, n: number) => (y1 * (g ** n - 1)) / (g - 1);
+
+const Y1 = 1e-5;
+const G = 1.2;
+const N = 10;
+const TOTAL = seriesTotal(Y1, G, N);
+
+describe('layer stack as a geometric series', () => {
+  it('solves total and last from first, growth and count', () => {
+    const s = solveStack({ first: Y1, growth: G, count: N });
+    expect(s.solved).toBe('total');
+    expect(relErr(s.total, TOTAL)).toBeLessThan(1e-12);
+    expect(relErr(s.last, Y1 * G ** (N - 1))).toBeLessThan(1e-12);
+    expect(s.heights).toHaveLength(N);
+    expect(relErr(s.heights.reduce((a, b) => a + b, 0), TOTAL)).toBeLessThan(1e-12);
+  });
+
+  it('solves growth from first, count and total, and round-trips', () => {
+    const s = solveStack({ first: Y1, count: N, total: TOTAL });
+    expect(s.solved).toBe('growth');
+    expect(Math.abs(s.growth - G)).toBeLessThan(1e-12);
+    const back = solveStack({ first: Y1, growth: s.growth, count: N });
+    expect(relErr(back.total, TOTAL)).toBeLessThan(1e-12);
+  });
+
+  it('solves a growth ratio below 1 when the total is less than count × first', () => {
+    const total = seriesTotal(Y1, 0.9, 8);
+    expect(Math.abs(solveStack({ first: Y1, count: 8, total }).growth - 0.9)).toBeLessThan(1e-12);
+  });
+
+  it('solves growth 1 for a uniform stack', () => {
+    expect(solveStack({ first: Y1, count: 12, total: 12 * Y1 }).growth).toBeCloseTo(1, 12);
+  });
+
+  it('solves first from growth, count and total, and round-trips', () => {
+    const s = solveStack({ growth: G, count: N, total: TOTAL });
+    expect(relErr(s.first, Y1)).toBeLessThan(1e-12);
+    expect(relErr(solveStack({ first: s.first, growth: G, count: N }).total, TOTAL)).toBeLessThan(1e-12);
+  });
+
+  it('solves count as whole layers: an exact series total gives back the count', () => {
+    const s = solveStack({ first: Y1, growth: G, total: TOTAL });
+    expect(s.count).toBe(N);
+    expect(relErr(s.total, TOTAL)).toBeLessThan(1e-12);
+  });
+
+  it('rounds a solved count up and reports the resulting total', () => {
+    const s = solveStack({ first: Y1, growth: G, total: TOTAL * 1.01 });
+    expect(s.count).toBe(N + 1);
+    expect(relErr(s.total, seriesTotal(Y1, G, N + 1))).toBeLessThan(1e-12);
+    expect(s.askedTotal).toBe(TOTAL * 1.01);
+  });
+
+  it('keeps digits near growth 1, where (g^n − 1)/(g − 1) would cancel', () => {
+    // Σ g^i = n + n(n−1)/2 (g−1) + O((g−1)²), the series expanded about g = 1.
+    const g = 1 + 1e-9;
+    expect(relErr(seriesSum(g, 50), 50 + (50 * 49) / 2 * 1e-9)).toBeLessThan(1e-12);
+  });
+
+  it('refuses anything but exactly three of the four, and impossible stacks', () => {
+    expect(() => solveStack({ first: Y1, growth: G })).toThrow(/exactly three.*given: first, growth/);
+    expect(() => solveStack({ first: Y1, growth: G, count: N, total: TOTAL })).toThrow(/exactly three/);
+    expect(() => solveStack({ first: Y1, growth: G, count: 2.5 })).toThrow(/whole number/);
+    expect(() => solveStack({ first: Y1, count: 5, total: Y1 / 2 })).toThrow(/more than first/);
+    expect(() => solveStack({ first: Y1, growth: 0.5, total: 10 * Y1 })).toThrow(/never passes/);
+    expect(() => solveStack({ first: -Y1, growth: G, count: N })).toThrow(/positive/);
+  });
+});
+
+describe('layer_stack entry', () => {
+  const base = { scale: str('linear') };
+
+  it('adds jump, inside and coverage and draws the stack to scale', () => {
+    const delta = 1.5e-4;
+    const core = 1e-4;
+    const r = asRecord(call('layer_stack', { first: si(Y1, 'm'), growth: num(G), count: num(N), core: si(core, 'm'), delta: si(delta, 'm'), ...base }));
+    expect([...r.fields.keys()]).toEqual(['first', 'growth', 'count', 'total', 'last', 'heights', 'jump', 'inside', 'coverage']);
+    expect(relErr(siField(r, 'jump'), core / (Y1 * G ** (N - 1)))).toBeLessThan(1e-12);
+    // Layers whose top lies below δ, counted here from the partial sums of the series.
+    let inside = 0;
+    while (inside < N && seriesTotal(Y1, G, inside + 1) <= delta) inside++;
+    expect(siField(r, 'inside')).toBe(inside);
+    expect(relErr(siField(r, 'coverage'), TOTAL / delta)).toBeLessThan(1e-12);
+    const heights = r.fields.get('heights')!.value;
+    expect(heights.kind === 'list' && heights.items.length).toBe(N);
+    expect(r.figure?.svg).toMatch(/^<svg[^>]*viewBox="0 0 \d+ \d+"/);
+    expect(r.figure?.svg).toMatch(/boundary-layer edge δ = 150 µm/);
+    expect(r.figure?.svg).not.toMatch(/<script|on\w+=/i);
+  });
+
+  it('flags growth above 1.3, a jump above 2 and fewer than ten cells across δ (common practice)', () => {
+    const r = asRecord(call('layer_stack', { first: si(1e-4, 'm'), growth: num(1.4), count: num(5), core: si(5e-3, 'm'), delta: si(2e-3, 'm'), ...base }));
+    const text = r.warnings.join('\n');
+    expect(text).toMatch(/growth ratio 1.4 is above about 1.3/);
+    expect(text).toMatch(/core cell is .* above about 2/);
+    expect(text).toMatch(/cells lie across the boundary layer/);
+  });
+
+  it('raises no flag for a gentle, well-matched stack', () => {
+    const r = asRecord(call('layer_stack', { first: si(Y1, 'm'), growth: num(1.15), count: num(30), core: si(1.2 * Y1 * 1.15 ** 29, 'm'), delta: si(1e-3, 'm'), ...base }));
+    expect(r.warnings).toEqual([]);
+  });
+
+  it('the log-scale picture shows each thin layer the linear one merges', () => {
+    const args = { first: si(2e-5, 'm'), growth: num(1.2), total: si(30e-3, 'm'), delta: si(60e-3, 'm') };
+    const lin = asRecord(call('layer_stack', { ...args, scale: str('linear') })).figure!.svg;
+    const log = asRecord(call('layer_stack', { ...args, scale: str('log') })).figure!.svg;
+    expect(lin).toMatch(/not drawn separately/);
+    expect(log).not.toMatch(/not drawn separately/);
+    expect(log).toMatch(/log scale/);
+  });
+
+  it('turns bad input into a sheet error', () => {
+    expect(() => call('layer_stack', { first: si(Y1, 'm'), ...base })).toThrow(TradeError);
+    expect(() => call('layer_stack', { first: si(Y1, 'm'), growth: num(G), count: num(N), scale: str('cubic') })).toThrow(/scale "cubic" is not one of/);
+  });
+});
