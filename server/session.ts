@@ -224,7 +224,7 @@ function needsCaution(v: Value): boolean {
 }
 
 function statementInputs(r: StatementResult, values: ReadonlyMap<string, Value>): unknown[] {
-  return [r.stmt.line, r.stmt.source, r.value, r.error?.message, r.error?.column, r.blockedBy, r.warnings, ...r.uses.map((n) => values.get(n))];
+  return [r.stmt.line, r.stmt.source, r.value, r.error?.message, r.error?.column, r.blockedBy, r.skipped, r.warnings, ...r.uses.map((n) => values.get(n))];
 }
 
 function sameList(a: unknown[], b: unknown[]): boolean {

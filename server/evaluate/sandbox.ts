@@ -133,7 +133,7 @@ export class Sandbox {
       job.reject(new SandboxError('timeout', `evaluation took longer than ${this.limits.timeoutMs} ms and was stopped`));
       this.kill();
       void this.pump();
-    }, this.limits.timeoutMs + 500);
+    }, this.limits.timeoutMs + Math.max(1000, this.limits.timeoutMs));
     child.send(job.req);
   }
 

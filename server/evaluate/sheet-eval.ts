@@ -18,6 +18,8 @@ export interface StatementResult {
   error?: Diagnostic;
   /** Set when not evaluated because an input failed: the failed name. */
   blockedBy?: string;
+  /** Set when not evaluated because the sheet hit a limit earlier: why. */
+  skipped?: string;
   warnings: string[];
   /** Names the statement reads, in order of appearance. */
   readonly uses: readonly string[];
@@ -104,8 +106,13 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   let freshCount = 0;
 
   const used = new Set<string>();
+  let stopped: string | undefined;
   const run = (r: StatementResult) => {
     if (r.error) return;
+    if (stopped) {
+      r.skipped = stopped;
+      return;
+    }
     for (const u of namesUsed(r.stmt.expr)) {
       if (defs.has(u.name) || CONSTANTS.has(u.name) || broken.has(u.name)) continue;
       r.error = diagnostic(new SheetError('unknown-name', `\`${u.name}\` is not defined (line ${u.span.line})`, u.span), r.stmt.line);
@@ -143,13 +150,14 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     entry.reads.forEach((x) => reads.add(x.path));
     // Limit errors depend on the whole run, not on this statement: never cache them.
     if (entry.error?.code !== 'limit') cache.entries.set(key, entry);
+    else stopped = `the sheet stopped at the limit on line ${r.stmt.line}`;
   };
 
   for (const name of order) {
     const r = defs.get(name)!;
     run(r);
     const stmt = r.stmt as Extract<Statement, { type: 'define' }>;
-    if (r.error || r.blockedBy) failed.set(name, r.blockedBy ?? name);
+    if (r.error || r.blockedBy || r.skipped) failed.set(name, r.blockedBy ?? name);
     else values.set(stmt.name, r.value!);
   }
   for (const r of results) {

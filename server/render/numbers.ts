@@ -51,7 +51,7 @@ function trimZeros(s: string): string {
 
 /** How a quantity is shown: its own unit if it has one, else SI with a prefix. */
 export function showQuantity(q: Quantity, sig: number): Shown {
-  if (q.unit && !autoPrefixed(q.unit.text)) {
+  if (q.unit && (q.pinned || !autoPrefixed(q.unit.text))) {
     const v = q.unit.text === '%' ? q.si * 100 : inUnit(q, q.unit);
     return { ...formatNumber(v, sig), unit: q.unit.text };
   }

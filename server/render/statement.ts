@@ -78,6 +78,7 @@ export function errorHtml(message: string, line: number, column: number, source?
 }
 
 function blockedHtml(r: StatementResult): string {
+  if (r.skipped) return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: ${esc(r.skipped)}</div>`;
   return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: depends on <code>${esc(r.blockedBy!)}</code></div>`;
 }
 
@@ -92,13 +93,13 @@ function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'def
   const sym = symbolLatex(s.name);
   const literal = isLiteral(s.expr);
   const cls = literal ? 'ws-input' : 'ws-result';
-  const data = r.value && !r.error && !r.blockedBy ? dataAttrs(s.name, r.value) : attrs({ 'data-name': s.name, 'data-state': r.error ? 'error' : 'not-evaluated' });
+  const data = r.value && !r.error && !r.blockedBy && !r.skipped ? dataAttrs(s.name, r.value) : attrs({ 'data-name': s.name, 'data-state': r.error ? 'error' : 'not-evaluated' });
   const head = `<div class="ws-stmt ws-def ${cls}"${attrs({ 'data-line': s.line, id: `v-${s.name}` })}${data}`;
   if (r.error) {
     const formula = mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`);
     return `${head}><div class="ws-formula">${formula}</div>${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
   }
-  if (r.blockedBy) {
+  if (r.blockedBy || r.skipped) {
     return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`)}</div>${blockedHtml(r)}</div>`;
   }
   const v = r.value!;
@@ -120,7 +121,7 @@ function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'chec
   const formula = mathHtml(subst && subst !== symbolic ? `${symbolic} \\quad\\Longrightarrow\\quad ${subst}` : symbolic);
   const label = s.label ? `<span class="ws-label">${esc(s.label)}</span>` : '';
   if (r.error) return `<div class="ws-stmt ws-check ws-check-error"${attrs({ 'data-line': s.line })}>${formula}${label}${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
-  if (r.blockedBy) return `<div class="ws-stmt ws-check ws-check-blocked"${attrs({ 'data-line': s.line })}>${formula}${label}${blockedHtml(r)}</div>`;
+  if (r.blockedBy || r.skipped) return `<div class="ws-stmt ws-check ws-check-blocked"${attrs({ 'data-line': s.line })}>${formula}${label}${blockedHtml(r)}</div>`;
   const pass = r.passed === true;
   const mark = pass ? '<span class="ws-mark" aria-label="passed">✓ pass</span>' : '<span class="ws-mark" aria-label="failed">✗ fail</span>';
   return `<div class="ws-stmt ws-check ${pass ? 'pass' : 'fail'}"${attrs({ 'data-line': s.line, 'data-passed': String(pass) })}>${mark}<span class="ws-formula">${formula}</span>${label}${warningsHtml(r)}</div>`;
@@ -131,7 +132,7 @@ function exprHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'expr'
   const symbolic = exprLatex(s.expr, { sig: view.sig });
   const name = s.source;
   if (r.error) return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}>${mathHtml(symbolic)}${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
-  if (r.blockedBy) return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}>${mathHtml(symbolic)}${blockedHtml(r)}</div>`;
+  if (r.blockedBy || r.skipped) return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}>${mathHtml(symbolic)}${blockedHtml(r)}</div>`;
   const v = r.value!;
   const { inline, block } = resultLatexOrBlock(name, v, view);
   const subst = substituted(s.expr, view);
@@ -140,6 +141,8 @@ function exprHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'expr'
 }
 
 export function statementHtml(r: StatementResult, view: StatementView): string {
+  // After a limit the rest of the sheet is listed, not typeset: typesetting is what would take the time.
+  if (r.skipped) return `<div class="ws-stmt ws-skipped"${attrs({ 'data-line': r.stmt.line })}><code class="ws-source">${esc(r.stmt.source)}</code>${blockedHtml(r)}</div>`;
   switch (r.stmt.type) {
     case 'define':
       return defineHtml(r as StatementResult & { stmt: Extract<Statement, { type: 'define' }> }, view);

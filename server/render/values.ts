@@ -26,14 +26,24 @@ export function displayText(v: Value, sig: number): string {
   }
 }
 
-function listText(items: readonly Value[], sig: number): string {
+/** Lists longer than this show their first and last items only. */
+const PREVIEW = 12;
+/** Lists longer than this leave out their items in JSON (the display still tells). */
+export const JSON_ITEMS_MAX = 10_000;
+/** Lists longer than this carry no data-si array in the HTML (it would dwarf the page). */
+const DATA_ITEMS_MAX = 1000;
+
+function listText(all: readonly Value[], sig: number): string {
+  const long = all.length > PREVIEW;
+  const items = long ? [...all.slice(0, 3), ...all.slice(-2)] : all;
   // [5, 10, 20] m/s when the items share one unit.
   const shown = items.map((i) => (i.kind === 'quantity' ? showQuantity(i, sig) : null));
   const unit = shown[0]?.unit;
-  if (shown.length > 0 && shown.every((s) => s && s.unit === unit && s.exponent === 0) && unit) {
-    return `[${shown.map((s) => s!.mantissa).join(', ')}] ${unit === '%' ? '%' : unitPlain(unit)}`;
-  }
-  return `[${items.map((i) => displayText(i, sig)).join(', ')}]`;
+  const shared = !!unit && shown.every((s) => s && s.unit === unit && s.exponent === 0);
+  const texts = shared ? shown.map((s) => s!.mantissa) : items.map((i) => displayText(i, sig));
+  const body = long ? [...texts.slice(0, 3), '…', ...texts.slice(3)] : texts;
+  const suffix = shared ? ` ${unit === '%' ? '%' : unitPlain(unit!)}` : '';
+  return `[${body.join(', ')}]${suffix}${long ? ` (${all.length} values)` : ''}`;
 }
 
 export function valueJson(v: Value, sig: number): ValueJson {
@@ -42,7 +52,7 @@ export function valueJson(v: Value, sig: number): ValueJson {
     case 'quantity':
       return { si: v.si, unit: unitLabel(v.dims), display };
     case 'list':
-      return { si: null, unit: '', display, items: v.items.map((i) => valueJson(i, sig)) };
+      return v.items.length > JSON_ITEMS_MAX ? { si: null, unit: '', display } : { si: null, unit: '', display, items: v.items.map((i) => valueJson(i, sig)) };
     case 'record': {
       const fields: Record<string, ValueJson> = {};
       for (const [k, f] of v.fields) fields[k] = valueJson(f.value, sig);
@@ -56,7 +66,7 @@ export function valueJson(v: Value, sig: number): ValueJson {
 /** data-* attributes for a value, read back by tests and the browser. */
 export function dataAttrs(name: string, v: Value): string {
   if (v.kind === 'quantity') return attrs({ 'data-name': name, 'data-si': v.si, 'data-unit': unitLabel(v.dims) });
-  if (v.kind === 'list' && v.items.every((i) => i.kind === 'quantity')) {
+  if (v.kind === 'list' && v.items.length <= DATA_ITEMS_MAX && v.items.every((i) => i.kind === 'quantity')) {
     return attrs({ 'data-name': name, 'data-si': JSON.stringify(v.items.map((i) => (i.kind === 'quantity' ? i.si : null))), 'data-unit': v.items[0] && v.items[0].kind === 'quantity' ? unitLabel(v.items[0].dims) : '' });
   }
   if (v.kind === 'string' || v.kind === 'bool') return attrs({ 'data-name': name, 'data-value': v.kind === 'string' ? v.value : String(v.value) });

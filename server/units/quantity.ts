@@ -13,6 +13,8 @@ export interface Quantity {
   readonly unit?: Unit;
   /** An absolute temperature read from degC/degF: two of them never add. */
   readonly absolute?: boolean;
+  /** The unit was asked for with `to`: show exactly it, no automatic prefix. */
+  readonly pinned?: boolean;
 }
 
 export function quantity(si: number, dims: Dims = DIMENSIONLESS, unit?: Unit, absolute?: boolean): Quantity {
@@ -47,7 +49,7 @@ export function inUnit(q: Quantity, u: Unit): number {
 
 export function convert(q: Quantity, u: Unit): Quantity {
   if (!dimsEqual(q.dims, u.dims)) throw new UnitError(`cannot convert ${describe(q.dims)} to ${u.text}`);
-  return quantity(q.si, q.dims, u, q.absolute || u.offset !== 0);
+  return { ...quantity(q.si, q.dims, u, q.absolute || u.offset !== 0), pinned: true };
 }
 
 export function describe(d: Dims): string {

@@ -1,0 +1,72 @@
+// Dependency order, redefinition, cycles, stale marking, and the incremental
+// cache (issue 2). Values are checked against hand arithmetic.
+import { describe, expect, it } from 'vitest';
+import { SheetSession } from '../../server/session.js';
+import { sheet, si } from './helpers.js';
+
+describe('dependency order', () => {
+  it('uses a name above its definition and keeps the file order in the output', async () => {
+    const r = await sheet(['Re = U * L / nu', 'U = 12 m/s', 'L = 4.2 m', 'nu = 1.47e-5 m^2/s']);
+    expect(r.errors).toEqual([]);
+    expect(si(r, 'Re')).toBeCloseTo((12 * 4.2) / 1.47e-5, 6);
+    const html = r.parts.map((p) => p.html).join('');
+    expect(html.indexOf('data-name="Re"')).toBeLessThan(html.indexOf('data-name="U"'));
+  });
+
+  it('reports a second definition at the second line and names the first', async () => {
+    const r = await sheet(['U = 12 m/s', 'L = 2 m', 'U = 14 m/s']);
+    expect(r.errors).toEqual([{ line: 4, column: 1, message: '"U" is already defined on line 2; a name is defined once', code: 'redefined' }]);
+    expect(si(r, 'U')).toBe(12);
+  });
+
+  it('names the cycle', async () => {
+    const r = await sheet(['a = b + 1', 'b = c * 2', 'c = a - 3', 'd = 4']);
+    expect(r.errors.map((e) => e.line)).toEqual([2, 3, 4]);
+    expect(r.errors[0]!.message).toBe('these definitions depend on each other in a circle: a → b → c → a');
+    expect(si(r, 'd')).toBe(4);
+  });
+
+  it('says which name is missing, with its line', async () => {
+    const r = await sheet(['x = 1 m', 'y = L_ref * 2']);
+    expect(r.errors).toEqual([{ line: 3, column: 5, message: '`L_ref` is not defined (line 3)', code: 'unknown-name' }]);
+  });
+
+  it('marks everything downstream of a failure as not evaluated, naming the root', async () => {
+    const r = await sheet(['bad = 12 m/s + 3 Pa', 'twice = bad * 2', 'thrice = twice * 3 / 2', 'ok = 5 m']);
+    expect(r.errors).toHaveLength(1);
+    const html = r.parts.map((p) => p.html).join('');
+    expect(html).toMatch(/data-name="twice" data-state="not-evaluated"[\s\S]*not evaluated: depends on <code>bad<\/code>/);
+    expect(html).toMatch(/data-name="thrice" data-state="not-evaluated"[\s\S]*not evaluated: depends on <code>bad<\/code>/);
+    expect(r.values.ok).toBeDefined();
+  });
+
+  it('blocks users of a line that could not be parsed', async () => {
+    const r = await sheet(['U = 12 m/', 'q = U * 2']);
+    expect(r.errors).toHaveLength(1);
+    expect(r.parts.map((p) => p.html).join('')).toContain('not evaluated: depends on <code>U</code>');
+  });
+
+  it('evaluates chained comparisons, element-wise lists and checks', async () => {
+    const r = await sheet(['speeds = [10, 20, 40] m/s', 'q = 0.5 * 1.225 kg/m^3 * speeds^2', 'check 0.5 <= 0.7 <= 0.8 "relaxation in range"', 'check q < 500 Pa "all below 500 Pa"']);
+    // q = rho U^2 / 2 by hand: 61.25, 245 and 980 Pa.
+    [61.25, 245, 980].forEach((want, i) => expect(r.values.q!.items![i]!.si).toBeCloseTo(want, 9));
+    expect(r.checks).toEqual([
+      { line: 4, passed: true, text: 'relaxation in range' },
+      { line: 5, passed: false, text: 'all below 500 Pa' },
+    ]);
+  });
+});
+
+describe('incremental evaluation', () => {
+  it('recomputes only what depends on a changed input', () => {
+    const session = new SheetSession();
+    const lines = ['U = 12 m/s', 'L = 4.2 m', 'nu = 1.5e-5 m^2/s', 'Re = U * L / nu', 'H = 2 m', 'A = H * L', 'Re_H = U * H / nu'];
+    const text = (u: string) => '```basis\n' + lines.join('\n').replace('U = 12 m/s', `U = ${u}`) + '\n```\n';
+    const first = session.render(text('12 m/s')) as unknown as { freshStatements: number; values: Record<string, { si: number }> };
+    expect(first.freshStatements).toBe(7);
+    const second = session.render(text('14 m/s')) as unknown as { freshStatements: number; values: Record<string, { si: number }> };
+    // U, Re and Re_H change; L, nu, H and A are reused.
+    expect(second.freshStatements).toBe(3);
+    expect(second.values.Re!.si).toBeCloseTo((14 * 4.2) / 1.5e-5, 6);
+  });
+});

@@ -1,0 +1,14 @@
+import { renderSheet } from '../../server/sheet.js';
+import type { SheetResult } from '../../server/sheet-types.js';
+
+/** Render a sheet made of one basis block holding `lines` (first statement on file line 2). */
+export function sheet(lines: string[], front = ''): Promise<SheetResult> {
+  const head = front ? `---\n${front}\n---\n` : '';
+  return renderSheet(`${head}\`\`\`basis\n${lines.join('\n')}\n\`\`\`\n`);
+}
+
+export function si(r: SheetResult, name: string): number {
+  const v = r.values[name];
+  if (!v || v.si === null) throw new Error(`${name} has no SI value: ${JSON.stringify(r.errors)}`);
+  return v.si;
+}
