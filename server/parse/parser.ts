@@ -177,6 +177,8 @@ function parseUnary(c: Cursor): Expr {
   if (c.at('-') || c.at('+')) {
     const t = c.next();
     const arg = parseUnary(c);
+    // A signed literal is one number: -5 degC is minus five degrees, not the negation of 278.15 K.
+    if (arg.type === 'number') return { ...arg, value: t.text === '-' ? -arg.value : arg.value, span: join(t.span, arg.span) };
     return { type: 'unary', op: t.text as '-' | '+', arg, span: join(t.span, arg.span) };
   }
   return parsePower(c);

@@ -41,7 +41,8 @@ export function formatNumber(x: number, sig: number): { mantissa: string; expone
     const m = roundSig(r / Math.pow(10, exp), sig);
     return { mantissa: trimZeros(m.toPrecision(sig)), exponent: exp };
   }
-  return { mantissa: trimZeros(r.toPrecision(sig)), exponent: 0 };
+  // toFixed, not toPrecision: 12345 at 4 figures is 12350, never "1.235e+4".
+  return { mantissa: trimZeros(r.toFixed(Math.max(0, sig - 1 - exp))), exponent: 0 };
 }
 
 function trimZeros(s: string): string {

@@ -35,7 +35,7 @@ export function proseHtml(tokens: Token[], links: TokensList['links']): string {
 /** Inline `=expr` code spans in rendered prose, as [whole match, decoded expression]. */
 export function inlineValueSpans(html: string): Array<{ match: string; expr: string }> {
   const out: Array<{ match: string; expr: string }> = [];
-  for (const m of html.matchAll(/<code>=([^<]+)<\/code>/g)) out.push({ match: m[0], expr: decode(m[1]!) });
+  for (const m of html.matchAll(/<code>=(?!=)([^<]+)<\/code>/g)) out.push({ match: m[0], expr: decode(m[1]!) });
   return out;
 }
 

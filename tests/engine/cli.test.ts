@@ -1,0 +1,59 @@
+// The command line: eval --json shape, check's file:line output and exit
+// codes (0 ok, 1 failed checks or errors, 2 bad usage), render -o.
+import { execFile } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+const BIN = join(process.cwd(), 'bin', 'wakesheet.js');
+
+function run(args: string[], cwd = process.cwd()): Promise<{ code: number; stdout: string; stderr: string }> {
+  return new Promise((resolve) => {
+    execFile('node', [BIN, ...args], { cwd, env: { ...process.env, NO_COLOR: '1' } }, (err, stdout, stderr) => {
+      resolve({ code: err ? ((err as { code?: number }).code ?? 1) : 0, stdout, stderr });
+    });
+  });
+}
+
+const dir = mkdtempSync(join(tmpdir(), 'ws-cli-'));
+mkdirSync(join(dir, 'sub'));
+writeFileSync(join(dir, 'good.md'), '# Good\n\n```basis\nT = 15 degC\nI = 5 %\nU = 12 m/s\ncheck U > 10 m/s "fast enough"\n```\n');
+writeFileSync(join(dir, 'sub', 'bad.md'), '```basis\nU = 12 m/s\nx = U + 3 Pa\ncheck U > 20 m/s "fast"\n```\n');
+
+describe('wakesheet CLI', () => {
+  it('eval --json prints values in SI (kelvin, fractions), checks and errors', async () => {
+    const r = await run(['eval', join(dir, 'good.md'), '--json']);
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.values.T).toEqual({ si: 288.15, unit: 'K', display: '15 °C' });
+    expect(out.values.I).toEqual({ si: 0.05, unit: '', display: '5 %' });
+    expect(out.checks).toEqual([{ line: 7, passed: true, text: 'fast enough' }]);
+    expect(out.errors).toEqual([]);
+  });
+
+  it('check lists each failure as file:line and exits 1', async () => {
+    const r = await run(['check', '.'], dir);
+    expect(r.code).toBe(1);
+    expect(r.stdout).toContain('sub/bad.md:3:5: error cannot add m/s to Pa');
+    expect(r.stdout).toContain('sub/bad.md:4: check failed fast');
+    expect(r.stdout).not.toContain('good.md');
+  });
+
+  it('render -o writes one self-contained HTML file', async () => {
+    const out = join(dir, 'good.html');
+    const r = await run(['render', join(dir, 'good.md'), '-o', out]);
+    expect(r.code).toBe(0);
+    const html = readFileSync(out, 'utf8');
+    expect(html).toContain('data:font/woff2;base64,');
+    expect(html).not.toMatch(/<link[^>]+stylesheet|https?:\/\/cdn/);
+  });
+
+  it('exits 2 on bad usage and prints help on --help', async () => {
+    expect((await run(['eval'])).code).toBe(2);
+    expect((await run(['frobnicate'])).code).toBe(2);
+    const help = await run(['check', '--help']);
+    expect(help.code).toBe(0);
+    expect(help.stdout).toContain('wakesheet check [DIR]');
+  });
+});
