@@ -153,7 +153,10 @@ function invoke(entry: TradeFunction, bound: Bound, span: Span, scope: Scope): V
     return entry.compute(bound.values, scope.context);
   } catch (err) {
     if (err instanceof SheetError) throw err.span ? err : new SheetError(err.code, err.message, span);
-    if (err instanceof TradeError) throw new SheetError('bad-argument', `${entry.name}(): ${err.message}`, span);
+    if (err instanceof TradeError) {
+      const named = err.message.startsWith(`${entry.name}(`) ? err.message : `${entry.name}(): ${err.message}`;
+      throw new SheetError('bad-argument', named, span);
+    }
     if (err instanceof UnitError) throw new SheetError('unit-mismatch', `${entry.name}(): ${err.message}`, span);
     const msg = err instanceof Error ? err.message : String(err);
     throw new SheetError('internal', `internal fault in ${entry.name}(): ${msg}`, span);
