@@ -1,0 +1,212 @@
+// Live-update benchmark: from the start of writing a sheet to the new value in
+// the page in Chromium, over 50 saves, for the demo sheet and a generated
+// 2,000-statement sheet. Next to it, the floor (marked and KaTeX alone
+// rendering the same output) and the cost of re-evaluating after a one-input
+// change against a full evaluation.
+import { existsSync } from 'node:fs';
+import { mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import katex from 'katex';
+import { marked } from 'marked';
+import { chromium } from 'playwright-core';
+import { Sandbox } from '../server/evaluate/sandbox.js';
+import { startServer, type SheetRenderer } from '../server/serve/index.js';
+import type { RenderOptions, SheetResult } from '../server/sheet-types.js';
+import { demoSheet, generatedSheet, type BenchSheet } from './sheets.js';
+import { fmt, summarise, type Summary } from './stats.js';
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const CHROMIUM = process.env.WAKESHEET_CHROMIUM ?? '/usr/bin/chromium';
+const SAVES = Number(process.env.WAKESHEET_BENCH_SAVES ?? 50);
+/** Generous, so the benchmark measures speed rather than the default time limit. */
+const BENCH_TIMEOUT_MS = 20_000;
+
+export interface LiveFigures {
+  sheet: string;
+  /** writeFile start → new value in the DOM. */
+  toDom: Summary | null;
+  /** writeFile start → first animation frame after it (what the eye can see). */
+  toFrame: Summary | null;
+  /** Where the time goes: writeFile → evaluation starts (watch, debounce, read). */
+  toEvalStart: Summary | null;
+  /** Evaluation in the sandbox, round trip included. */
+  evalRoundTrip: Summary | null;
+  /** Evaluation done → value in the DOM (hash, send, parse, patch). */
+  evalToDom: Summary | null;
+  /** marked + KaTeX alone on the same text and formulas. */
+  floor: Summary;
+  fullEval: Summary;
+  oneInputEval: Summary;
+}
+
+export async function benchLive(): Promise<LiveFigures[]> {
+  const sheets = [demoSheet(ROOT), generatedSheet()];
+  const results: LiveFigures[] = [];
+  for (const sheet of sheets) {
+    const { full, oneInput, formulas } = await evaluationCost(sheet);
+    const floor = floorCost(sheet, formulas);
+    const browser = existsSync(CHROMIUM) ? await saveToPage(sheet) : null;
+    if (!browser) console.warn(`skipping the browser part: no Chromium at ${CHROMIUM}`);
+    results.push({
+      sheet: sheet.name,
+      toDom: browser?.toDom ?? null,
+      toFrame: browser?.toFrame ?? null,
+      toEvalStart: browser?.toEvalStart ?? null,
+      evalRoundTrip: browser?.evalRoundTrip ?? null,
+      evalToDom: browser?.evalToDom ?? null,
+      floor,
+      fullEval: full,
+      oneInputEval: oneInput,
+    });
+  }
+  return results;
+}
+
+/** Full evaluation (a fresh per-sheet cache) against re-evaluation after one input changed. */
+async function evaluationCost(sheet: BenchSheet) {
+  const sandbox = new Sandbox({ timeoutMs: BENCH_TIMEOUT_MS });
+  const full: number[] = [];
+  const oneInput: number[] = [];
+  let formulas: string[] = [];
+  try {
+    await sandbox.render(sheet.text(sheet.base), { path: path.join(ROOT, 'bench', 'warm-up.md'), root: ROOT });
+    for (let run = 0; run < 5; run++) {
+      const opts = { path: path.join(ROOT, 'bench', `full-${run}.md`), root: ROOT };
+      const first = await sandbox.render(sheet.text(sheet.base), opts);
+      full.push(first.elapsedMs);
+      if (run === 0) formulas = texOf(first.parts.map((p) => p.html).join(''));
+      for (let i = 1; i <= 4; i++) oneInput.push((await sandbox.render(sheet.text(sheet.base + run + i / 10), opts)).elapsedMs);
+    }
+  } finally {
+    await sandbox.close();
+  }
+  return { full: summarise(full), oneInput: summarise(oneInput), formulas };
+}
+
+/** The TeX sources KaTeX rendered, read back from its annotations. */
+function texOf(html: string): string[] {
+  const decode = (s: string) => s.replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, '&');
+  return [...html.matchAll(/<annotation encoding="application\/x-tex">([\s\S]*?)<\/annotation>/g)].map((m) => decode(m[1]!));
+}
+
+function floorCost(sheet: BenchSheet, formulas: string[]): Summary {
+  const text = sheet.text(sheet.base);
+  const samples: number[] = [];
+  for (let run = 0; run < 12; run++) {
+    const t0 = performance.now();
+    marked.parse(text, { async: false });
+    for (const tex of formulas) katex.renderToString(tex, { throwOnError: false });
+    if (run >= 2) samples.push(performance.now() - t0); // the first runs warm up the JIT
+  }
+  return summarise(samples);
+}
+
+/** The sandbox, noting when each evaluation starts and ends (epoch ms, like the page's clock). */
+class TimedSandbox implements SheetRenderer {
+  private readonly inner = new Sandbox({ timeoutMs: BENCH_TIMEOUT_MS });
+  last = { start: 0, end: 0 };
+  async render(text: string, opts: RenderOptions): Promise<SheetResult> {
+    const start = performance.timeOrigin + performance.now();
+    const result = await this.inner.render(text, opts);
+    this.last = { start, end: performance.timeOrigin + performance.now() };
+    return result;
+  }
+  close(): Promise<void> {
+    return this.inner.close();
+  }
+}
+
+async function saveToPage(sheet: BenchSheet) {
+  const dir = await mkdtemp(path.join(tmpdir(), 'wakesheet-bench-'));
+  const file = path.join(dir, 'sheet.md');
+  await writeFile(file, sheet.text(sheet.base));
+  const renderer = new TimedSandbox();
+  const server = await startServer({ dir, port: 0, renderer });
+  const profile = await mkdtemp(path.join(tmpdir(), 'wakesheet-bench-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM,
+    headless: true,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+  const toDom: number[] = [];
+  const toFrame: number[] = [];
+  const toEvalStart: number[] = [];
+  const evalRoundTrip: number[] = [];
+  const evalToDom: number[] = [];
+  try {
+    const page = await context.newPage();
+    await page.goto(server.url + 'sheet/sheet.md');
+    await page.waitForSelector(`[data-name="${sheet.input}"]`, { timeout: 60_000 });
+    await page.evaluate(PROBE_SOURCE);
+    for (let i = 1; i <= SAVES; i++) {
+      const value = sheet.base + i / 100;
+      await page.evaluate(`window.benchExpect(${JSON.stringify(sheet.input)}, ${sheet.si(value)})`);
+      const t0 = performance.timeOrigin + performance.now();
+      await writeFile(file, sheet.text(value));
+      const seen = await page.waitForFunction(() => (window as unknown as { benchSeen: unknown }).benchSeen, null, { timeout: 30_000, polling: 5 });
+      const { dom, frame } = (await seen.jsonValue()) as { dom: number; frame: number };
+      toDom.push(dom - t0);
+      toFrame.push(frame - t0);
+      toEvalStart.push(renderer.last.start - t0);
+      evalRoundTrip.push(renderer.last.end - renderer.last.start);
+      evalToDom.push(dom - renderer.last.end);
+      await new Promise((r) => setTimeout(r, 150)); // let the watcher's second look pass
+    }
+  } finally {
+    await context.close();
+    await server.close();
+    await rm(profile, { recursive: true, force: true });
+    await rm(dir, { recursive: true, force: true });
+  }
+  return {
+    toDom: summarise(toDom),
+    toFrame: summarise(toFrame),
+    toEvalStart: summarise(toEvalStart),
+    evalRoundTrip: summarise(evalRoundTrip),
+    evalToDom: summarise(evalToDom),
+  };
+}
+
+/**
+ * Runs in the page: notes when the expected value appears, and the next frame.
+ * Kept as source text: the TypeScript loader would add helpers to a function
+ * that do not exist in the page.
+ */
+const PROBE_SOURCE = `(() => {
+  const now = () => performance.timeOrigin + performance.now();
+  window.benchTarget = null;
+  window.benchSeen = null;
+  window.benchExpect = (name, si) => { window.benchTarget = { name, si }; window.benchSeen = null; };
+  new MutationObserver(() => {
+    const target = window.benchTarget;
+    if (!target) return;
+    const el = document.querySelector('main [data-name="' + target.name + '"]');
+    const si = Number(el && el.getAttribute('data-si'));
+    if (!(Math.abs(si - target.si) <= 1e-9 * Math.abs(target.si))) return;
+    const dom = now();
+    window.benchTarget = null;
+    requestAnimationFrame(() => { window.benchSeen = { dom, frame: now() }; });
+  }).observe(document.querySelector('main'), { childList: true, subtree: true });
+})()`;
+
+export function printLive(figures: LiveFigures[]): void {
+  console.log('\nLive update, writeFile → page (ms)            median      p95      min      max');
+  for (const f of figures) {
+    const row = (label: string, s: Summary | null) =>
+      console.log(`  ${label.padEnd(44)}${fmt(s?.median ?? NaN)} ${fmt(s?.p95 ?? NaN)} ${fmt(s?.min ?? NaN)} ${fmt(s?.max ?? NaN)}`);
+    console.log(`${f.sheet}`);
+    row(`new value in the DOM (${f.toDom?.n ?? 0} saves)`, f.toDom);
+    row('next animation frame', f.toFrame);
+    row('  of which: write → evaluation starts', f.toEvalStart);
+    row('  of which: evaluation (sandbox round trip)', f.evalRoundTrip);
+    row('  of which: evaluated → in the DOM', f.evalToDom);
+    row('floor: marked + KaTeX alone, same output', f.floor);
+    row('evaluation, full (engine elapsedMs)', f.fullEval);
+    row('evaluation, one input changed', f.oneInputEval);
+    const share = f.oneInputEval.median / f.fullEval.median;
+    const vsFloor = f.toDom ? f.toDom.p95 / f.floor.median : NaN;
+    console.log(`  one-input / full: ${(share * 100).toFixed(1)} %;  p95 / floor: ${vsFloor.toFixed(2)}`);
+  }
+}

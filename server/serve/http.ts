@@ -1,0 +1,137 @@
+// The express app: the index, each sheet's page and the static assets (the
+// client from web/, KaTeX's stylesheet and fonts from node_modules). Every
+// response carries the security headers; requests naming another host are
+// refused before any route runs.
+import { existsSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import express, { type NextFunction, type Request, type Response } from 'express';
+import { indexPage, sheetPage } from './pages.js';
+import { ALLOWED_METHODS, checkSheetPath, resolveSheetFile, SECURITY_HEADERS, SheetPathError, type HostPolicy } from './security.js';
+import type { SheetStore } from './store.js';
+
+export interface AppContext {
+  store: SheetStore;
+  realRoot: string;
+  folderName: string;
+  /** Known once the server is listening (the port may have been 0). */
+  policy: () => HostPolicy | null;
+}
+
+/** How long a page request waits for a sheet's first evaluation. */
+const FIRST_EVALUATION_WAIT_MS = 10_000;
+const INDEX_WAIT_MS = 1500;
+
+/** The folder holding package.json, found from this module (works from dist/ too). */
+export function packageRoot(): string {
+  let dir = path.dirname(fileURLToPath(import.meta.url));
+  while (!existsSync(path.join(dir, 'package.json'))) {
+    const parent = path.dirname(dir);
+    if (parent === dir) throw new Error('package.json not found above ' + fileURLToPath(import.meta.url));
+    dir = parent;
+  }
+  return dir;
+}
+
+function katexDist(): string {
+  const require = createRequire(import.meta.url);
+  return path.join(path.dirname(require.resolve('katex/package.json')), 'dist');
+}
+
+export function createApp(context: AppContext): express.Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('etag', false);
+
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    res.set(SECURITY_HEADERS);
+    const policy = context.policy();
+    if (!policy || !policy.allowsHost(req.headers.host)) {
+      res.status(403).type('text/plain').send('Forbidden: this server answers only to its own address.\n');
+      return;
+    }
+    if (!ALLOWED_METHODS.has(req.method)) {
+      res.status(405).set('Allow', 'GET, HEAD').type('text/plain').send('Only GET and HEAD: the server never changes sheets.\n');
+      return;
+    }
+    next();
+  });
+
+  app.get('/', async (_req, res) => {
+    // Right after start-up, give the first evaluations a moment so the index
+    // has figures in it; the page updates itself afterwards anyway.
+    await Promise.race([context.store.whenAllEvaluated(), delay(INDEX_WAIT_MS)]);
+    res.type('html').set('Cache-Control', 'no-store').send(indexPage(context.folderName, context.store.index()));
+  });
+
+  app.use('/sheet', (req, res, next) => {
+    void serveSheet(context, req, res).catch(next);
+  });
+
+  const katex = katexDist();
+  app.use('/assets/katex', (req, res, next) => {
+    // Only the stylesheet and its fonts: the page never loads KaTeX's scripts.
+    if (req.path === '/katex.min.css' || /^\/fonts\/[\w.-]+\.(woff2?|ttf)$/.test(req.path)) next();
+    else res.status(404).type('text/plain').send('Not found\n');
+  });
+  app.use('/assets/katex', express.static(katex, { index: false, dotfiles: 'ignore', maxAge: '1d' }));
+  app.use(
+    '/assets',
+    express.static(path.join(packageRoot(), 'web'), {
+      index: false,
+      dotfiles: 'ignore',
+      setHeaders: (res) => res.setHeader('Cache-Control', 'no-cache'),
+    }),
+  );
+
+  app.use((_req, res) => {
+    res.status(404).type('text/plain').send('Not found\n');
+  });
+  app.use((error: unknown, _req: Request, res: Response, _next: NextFunction) => {
+    console.error('wakesheet serve: request failed:', error);
+    if (!res.headersSent) res.status(500).type('text/plain').send('Internal error\n');
+  });
+  return app;
+}
+
+async function serveSheet(context: AppContext, req: Request, res: Response): Promise<void> {
+  const notFound = () => res.status(404).type('text/plain').send('No such sheet in this folder.\n');
+  let sheet: string;
+  try {
+    const raw = req.path.replace(/^\//, '');
+    sheet = checkSheetPath(raw.split('/').map((s) => decodeURIComponent(s)).join('/'));
+    if (raw.split('/').some((s) => decodeURIComponent(s).includes('/'))) throw new SheetPathError('encoded slash', 'bad-path');
+  } catch {
+    notFound();
+    return;
+  }
+  const { store } = context;
+  if (!store.knows(sheet)) {
+    notFound();
+    return;
+  }
+  if (store.has(sheet)) {
+    // Defence in depth: the store only lists files inside the folder, but
+    // check the real path again before showing anything.
+    try {
+      await resolveSheetFile(context.realRoot, sheet);
+    } catch (error) {
+      if (!(error instanceof SheetPathError && error.code === 'missing')) {
+        notFound();
+        return;
+      }
+    }
+  }
+  await Promise.race([store.whenEvaluated(sheet), delay(FIRST_EVALUATION_WAIT_MS)]);
+  const frame = store.frame(sheet);
+  if (!frame) {
+    notFound();
+    return;
+  }
+  res.type('html').set('Cache-Control', 'no-store').send(sheetPage(frame));
+}
+
+function delay(ms: number): Promise<void> {
+  return new Promise((resolve) => setTimeout(resolve, ms).unref());
+}

@@ -1,0 +1,109 @@
+// Messages between the live server and the page, as JSON over one WebSocket
+// at /live. The browser client (web/*.js) mirrors these shapes by hand, so a
+// change here is a change there too.
+
+/** One part of a sheet's <main>, identified by its key and content hash. */
+export interface PartFrame {
+  key: string;
+  /** Short hash of the html: the client replaces a part only when it differs. */
+  hash: string;
+  /** Present when the receiver may not have this content yet. */
+  html?: string;
+}
+
+/** What the page shows around the sheet's content. */
+export interface SheetCondition {
+  /** The content shown is not the current file's: last good parts are kept. */
+  stale: boolean;
+  /** Why evaluation itself failed (timeout, crash, unreadable file), if it did. */
+  failure: string | null;
+  /** The file no longer exists. */
+  gone: boolean;
+  /** The file was renamed to this path (relative to the served folder). */
+  movedTo: string | null;
+  /** ISO time of the last evaluation that produced the parts shown, if any. */
+  evaluatedAt: string | null;
+  elapsedMs: number | null;
+}
+
+/** Server → client: the state of one sheet, complete or relative to `base`. */
+export interface SheetFrameMessage {
+  type: 'sheet';
+  sheet: string;
+  version: number;
+  /** Version this frame patches; null when the frame is complete. */
+  base: number | null;
+  title: string;
+  /** Every part in order; html only where it changed since `base`. */
+  parts: PartFrame[];
+  /** The sheet's header (title, front matter, caution); null when unchanged since `base`. */
+  headerHtml: string | null;
+  /** null when unchanged since `base`. */
+  summaryHtml: string | null;
+  condition: SheetCondition;
+}
+
+/** Server → client: the sheet is being evaluated right now. */
+export interface BusyMessage {
+  type: 'busy';
+  sheet: string;
+}
+
+export type SheetState = 'waiting' | 'evaluating' | 'ready' | 'failed';
+
+/** One row of the index page. */
+export interface IndexEntry {
+  path: string;
+  title: string;
+  state: SheetState;
+  checksPassed: number;
+  checksFailed: number;
+  errors: number;
+  evaluatedAt: string | null;
+  elapsedMs: number | null;
+  failure: string | null;
+}
+
+/** Server → client: the whole index (it is small). */
+export interface IndexMessage {
+  type: 'index';
+  sheets: IndexEntry[];
+}
+
+export type ServerMessage = SheetFrameMessage | BusyMessage | IndexMessage;
+
+/** Client → server: send me this sheet (complete now, patches afterwards). */
+export interface FollowSheetMessage {
+  type: 'follow';
+  target: 'sheet';
+  sheet: string;
+}
+
+/** Client → server: send me the index (now and on every change). */
+export interface FollowIndexMessage {
+  type: 'follow';
+  target: 'index';
+}
+
+export type ClientMessage = FollowSheetMessage | FollowIndexMessage;
+
+/** Largest client message accepted; follow requests are tiny. */
+export const MAX_CLIENT_MESSAGE_BYTES = 4096;
+
+/** Parses a client message, or returns null for anything unexpected. */
+export function parseClientMessage(raw: string): ClientMessage | null {
+  let data: unknown;
+  try {
+    data = JSON.parse(raw);
+  } catch {
+    return null;
+  }
+  if (typeof data !== 'object' || data === null) return null;
+  const msg = data as Record<string, unknown>;
+  if (msg.type !== 'follow') return null;
+  if (msg.target === 'index') return { type: 'follow', target: 'index' };
+  if (msg.target === 'sheet' && typeof msg.sheet === 'string' && msg.sheet.length < 1024) {
+    return { type: 'follow', target: 'sheet', sheet: msg.sheet };
+  }
+  return null;
+}

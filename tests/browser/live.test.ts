@@ -1,0 +1,212 @@
+// The live page in real Chromium against the real server on 127.0.0.1.
+import { createServer } from 'node:http';
+import { rename, rm, writeFile } from 'node:fs/promises';
+import path from 'node:path';
+import type { Page } from 'playwright-core';
+import { afterAll, afterEach, beforeAll, expect, it } from 'vitest';
+import { startServer, type RunningServer, type ServeOptions } from '../../server/serve/index.js';
+import { makeFolder, put } from '../serve/helpers.js';
+import { describeInBrowser, launchBrowser, REBIND_HOST, type Browser } from './launch.js';
+import { valueShown, waitForStatus, waitForValue } from './probes.js';
+import { RUNAWAY, SandboxWithFaults, UnsanitisedRenderer, wingSheet } from './sheets.js';
+
+
+describeInBrowser('live sheet page', () => {
+  let browser: Browser;
+  let cleanup: (() => Promise<void>)[] = [];
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  afterEach(async () => {
+    for (const c of cleanup.reverse()) await c();
+    cleanup = [];
+  });
+
+  async function serveFolder(files: Record<string, string>, options: Partial<ServeOptions> = {}) {
+    const folder = await makeFolder(files);
+    cleanup.push(folder.remove);
+    const server = await startServer({ dir: folder.dir, port: 0, ...options });
+    cleanup.push(() => server.close());
+    return { dir: folder.dir, server };
+  }
+
+  async function openPage(url: string): Promise<Page> {
+    const page = await browser.context.newPage();
+    cleanup.push(() => page.close());
+    const response = await page.goto(url);
+    expect(response?.status()).toBe(200);
+    return page;
+  }
+
+  it('shows a change saved on disk without reloading the page', async () => {
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') });
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await waitForValue(page, 'U_inf', 12);
+    await waitForStatus(page, 'live');
+    await page.evaluate(() => ((window as unknown as { loadedOnce: boolean }).loadedOnce = true));
+
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('13.5 m/s'));
+    await waitForValue(page, 'U_inf', 13.5);
+    expect(await page.evaluate(() => (window as unknown as { loadedOnce?: boolean }).loadedOnce)).toBe(true);
+    // The result follows the input: Re = U_inf L / nu.
+    await waitForValue(page, 'Re', (13.5 * 4.2) / 1.47e-5);
+    await waitForStatus(page, 'live');
+    expect(await page.textContent('.live-status')).toMatch(/updated \d/);
+  });
+
+  it('keeps the scroll position and opened details across an update', async () => {
+    const filler = Array.from({ length: 60 }, (_, i) => `Paragraph ${i} about the mesh, the far field and the wake.`).join('\n\n');
+    const sheet = (speed: string) => wingSheet(speed, `${filler}\n\n<details><summary>Mesh notes</summary>\n\nTen cells across the layer.\n\n</details>\n\nEnd.`);
+    const { dir, server } = await serveFolder({ 'wing.md': sheet('12 m/s') });
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await page.setViewportSize({ width: 900, height: 500 });
+    await waitForStatus(page, 'live');
+    await page.click('summary:text("Mesh notes")');
+    await page.evaluate(() => window.scrollTo(0, document.body.scrollHeight));
+    const before = await page.evaluate(() => window.scrollY);
+    expect(before).toBeGreaterThan(1000);
+
+    await writeFile(path.join(dir, 'wing.md'), sheet('14 m/s'));
+    await waitForValue(page, 'U_inf', 14);
+    expect(await page.evaluate(() => document.querySelector('details')!.open)).toBe(true);
+    expect(Math.abs((await page.evaluate(() => window.scrollY)) - before)).toBeLessThan(3);
+  });
+
+  it('keeps the last good content, marked stale, while evaluation fails, and recovers', async () => {
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') }, { renderer: new SandboxWithFaults() });
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await waitForStatus(page, 'live');
+
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('20 m/s', RUNAWAY));
+    await page.waitForSelector('.live-notice:not([hidden])');
+    expect(await page.textContent('.live-notice')).toContain('evaluation timed out after 2000 ms');
+    expect(await page.getAttribute('main', 'class')).toContain('ws-stale');
+    expect(await valueShown(page, 'U_inf')).toBe(12); // the last good values stay visible
+
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('21 m/s'));
+    await waitForValue(page, 'U_inf', 21);
+    expect(await page.isHidden('.live-notice')).toBe(true);
+    expect(await page.getAttribute('main', 'class')).not.toContain('ws-stale');
+  });
+
+  it('shows an engine error in place with its line, keeps the rest, and recovers', async () => {
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') });
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await waitForStatus(page, 'live');
+    // Line 9 of the file: "U_inf = 12 m/s +" is cut short.
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('12 m/s +'));
+    const error = await page.waitForSelector('main .ws-error');
+    expect(await error.textContent()).toContain('line 9');
+    expect(await valueShown(page, 'L')).toBe(4.2); // statements that do not depend on it still show
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('15 m/s'));
+    await page.waitForSelector('main .ws-error', { state: 'detached' });
+    await waitForValue(page, 'Re', (15 * 4.2) / 1.47e-5);
+  });
+
+  it('reconnects by itself after the server restarts, and catches up', async () => {
+    const folder = await makeFolder({ 'wing.md': wingSheet('12 m/s') });
+    cleanup.push(folder.remove);
+    let server: RunningServer = await startServer({ dir: folder.dir, port: 0 });
+    cleanup.push(() => server.close());
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await waitForStatus(page, 'live');
+
+    await server.close();
+    await waitForStatus(page, 'offline');
+    // Changed while the server was down: the page must pick it up on reconnect.
+    await writeFile(path.join(folder.dir, 'wing.md'), wingSheet('16 m/s'));
+    server = await startServer({ dir: folder.dir, port: server.port });
+    await waitForStatus(page, 'live');
+    await waitForValue(page, 'U_inf', 16);
+
+    await writeFile(path.join(folder.dir, 'wing.md'), wingSheet('17 m/s'));
+    await waitForValue(page, 'U_inf', 17);
+  });
+
+  const attack = (n: number) =>
+    `<script>window.pwned = "script ${n}"</script>\n\n<img src="nowhere.png" onerror="window.pwned = 'img ${n}'">\n\n` +
+    `<svg><image href="x" onerror="window.pwned='svg ${n}'"></image></svg>\n\n<a href="javascript:void(window.pwned='link ${n}')" id="bad${n}">link</a>\n\nmarker ${n}`;
+
+  async function expectNoScriptRuns(options: Partial<ServeOptions>) {
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s', attack(1)) }, options);
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await waitForStatus(page, 'live');
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('12 m/s', attack(2)));
+    await page.waitForFunction(() => document.querySelector('main')!.textContent!.includes('marker 2'));
+    await page.waitForTimeout(150); // time for a failed image load to fire its handler
+    const pwned = () => page.evaluate(() => (window as unknown as { pwned?: string }).pwned);
+    expect(await pwned()).toBeUndefined();
+    await page.evaluate(() => (document.querySelector('#bad2') as HTMLAnchorElement | null)?.click());
+    await page.waitForTimeout(50);
+    expect(await pwned()).toBeUndefined();
+    expect(await page.textContent('main')).toContain('marker 2'); // still the same document
+  }
+
+  it('runs no script from the Markdown, on load or in an update', async () => {
+    await expectNoScriptRuns({});
+  });
+
+  it('stops scripts by its CSP alone, should markup ever get past the sanitiser', async () => {
+    await expectNoScriptRuns({ renderer: new UnsanitisedRenderer() });
+  });
+
+  it('refuses a page asked for under a rebinding host name', async () => {
+    const { server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') });
+    const page = await browser.context.newPage();
+    cleanup.push(() => page.close());
+    const response = await page.goto(`http://${REBIND_HOST}:${server.port}/sheet/wing.md`);
+    expect(response?.status()).toBe(403);
+    expect(await page.textContent('body')).not.toContain('U_inf');
+  });
+
+  it('refuses a WebSocket opened by a page of another origin', async () => {
+    const { server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') });
+    const other = createServer((_req, res) => res.end('<!doctype html><title>another site</title><p>elsewhere</p>'));
+    await new Promise<void>((resolve) => other.listen(0, '127.0.0.1', resolve));
+    cleanup.push(() => new Promise((resolve) => (other.closeAllConnections(), other.close(() => resolve()))));
+    const otherPort = (other.address() as { port: number }).port;
+
+    const tryOpen = (page: Page) =>
+      page.evaluate(
+        (port) =>
+          new Promise<string>((resolve) => {
+            const ws = new WebSocket(`ws://127.0.0.1:${port}/live`);
+            ws.onopen = () => resolve('open');
+            ws.onclose = () => resolve('refused');
+          }),
+        server.port,
+      );
+    const foreign = await openPage(`http://127.0.0.1:${otherPort}/`);
+    expect(await tryOpen(foreign)).toBe('refused');
+    const own = await openPage(server.url);
+    expect(await tryOpen(own)).toBe('open');
+  });
+
+  it('updates the index as sheets are added, evaluated and deleted', async () => {
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') });
+    const page = await openPage(server.url);
+    await waitForStatus(page, 'live');
+    expect(await page.textContent('tr[data-path="wing.md"]')).toContain('wing.md');
+
+    await put(dir, 'tail/fin.md', '---\ntitle: Fin\n---\nA fin.\n');
+    const row = await page.waitForSelector('tr[data-path="tail/fin.md"][data-state="ready"]');
+    expect(await row.getAttribute('data-state')).toBe('ready');
+    await rm(path.join(dir, 'wing.md'));
+    await page.waitForSelector('tr[data-path="wing.md"]', { state: 'detached' });
+  });
+
+  it('follows a sheet that is renamed while open', async () => {
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') });
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await waitForStatus(page, 'live');
+    await rename(path.join(dir, 'wing.md'), path.join(dir, 'wing-cruise.md'));
+    await page.waitForURL(/\/sheet\/wing-cruise\.md$/);
+    await page.waitForSelector('.live-notice:text("Renamed from wing.md to wing-cruise.md")');
+    expect(await page.textContent('.live-crumb')).toBe('wing-cruise.md');
+    await writeFile(path.join(dir, 'wing-cruise.md'), wingSheet('18 m/s'));
+    await waitForValue(page, 'U_inf', 18);
+  });
+});

@@ -1,0 +1,120 @@
+import { rm, writeFile } from 'node:fs/promises';
+import path from 'node:path';
+import { afterEach, describe, expect, it } from 'vitest';
+import type { SheetFrameMessage } from '../../server/serve/protocol.js';
+import { SheetStore } from '../../server/serve/store.js';
+import { ParagraphRenderer } from './fake-renderer.js';
+import { makeFolder, waitFor } from './helpers.js';
+
+let cleanup: (() => Promise<void>)[] = [];
+afterEach(async () => {
+  for (const c of cleanup.reverse()) await c();
+  cleanup = [];
+});
+
+async function storeWith(files: Record<string, string>) {
+  const folder = await makeFolder(files);
+  const renderer = new ParagraphRenderer();
+  const store = new SheetStore(folder.dir, renderer);
+  const frames: SheetFrameMessage[] = [];
+  store.on('sheet', (f) => frames.push(f));
+  cleanup.push(folder.remove, () => store.close());
+  store.addInitial(Object.keys(files));
+  for (const name of Object.keys(files)) if (name.endsWith('.md')) await store.whenEvaluated(name);
+  const write = (name: string, text: string) => writeFile(path.join(folder.dir, name), text);
+  return { dir: folder.dir, store, renderer, frames, write };
+}
+
+describe('SheetStore', () => {
+  it('evaluates every sheet of the first scan, and only sheets', async () => {
+    const { store, renderer } = await storeWith({ 'a.md': '# A\n\none', 'b.md': 'two', 'data.csv': '1' });
+    expect(renderer.calls.map((c) => path.basename(c.opts.path!)).sort()).toEqual(['a.md', 'b.md']);
+    expect(store.index().map((e) => [e.path, e.title, e.state])).toEqual([
+      ['a.md', 'A', 'ready'],
+      ['b.md', 'b', 'ready'],
+    ]);
+  });
+
+  it('sends only the parts whose html changed', async () => {
+    const { store, frames, write } = await storeWith({ 'a.md': 'one\n\ntwo\n\nthree' });
+    await write('a.md', 'one\n\nTWO\n\nthree');
+    store.handle({ kind: 'changed', file: 'a.md' });
+    const delta = await waitFor('a second frame', () => frames[1]);
+    expect(delta.base).toBe(1);
+    expect(delta.version).toBe(2);
+    expect(delta.parts.map((p) => [p.key, p.html !== undefined])).toEqual([
+      ['p0', false],
+      ['p1', true],
+      ['p2', false],
+    ]);
+    expect(delta.parts[1]!.html).toBe('<p>TWO</p>');
+    expect(store.frame('a.md')!.parts.every((p) => p.html !== undefined)).toBe(true);
+  });
+
+  it('re-evaluates only the sheets that read a changed data file', async () => {
+    const { store, renderer } = await storeWith({
+      'wing.md': 'reads: data/yplus.csv',
+      'tail.md': 'reads: data/residuals.csv',
+      'data/yplus.csv': '1',
+    });
+    const before = renderer.calls.length;
+    store.handle({ kind: 'changed', file: 'data/yplus.csv' });
+    await waitFor('one more evaluation', () => renderer.calls.length === before + 1);
+    await store.close();
+    expect(path.basename(renderer.calls.at(-1)!.opts.path!)).toBe('wing.md');
+    expect(renderer.calls.length).toBe(before + 1);
+  });
+
+  it('keeps the last good parts, marked stale, when evaluation fails, and recovers', async () => {
+    const { store, frames, write } = await storeWith({ 'a.md': 'good' });
+    await write('a.md', 'good\n\ncrash!');
+    store.handle({ kind: 'changed', file: 'a.md' });
+    const failed = await waitFor('the failure frame', () => frames[1]);
+    expect(failed.condition).toMatchObject({ stale: true, failure: 'evaluation failed: evaluation timed out after 2000 ms' });
+    expect(failed.parts).toEqual([{ key: 'p0', hash: expect.any(String) }]);
+    expect(store.index()[0]).toMatchObject({ state: 'failed', failure: expect.stringContaining('timed out') });
+
+    await write('a.md', 'mended');
+    store.handle({ kind: 'changed', file: 'a.md' });
+    const mended = await waitFor('the recovery frame', () => frames[2]);
+    expect(mended.condition).toMatchObject({ stale: false, failure: null });
+    expect(mended.parts[0]!.html).toBe('<p>mended</p>');
+  });
+
+  it('keeps a deleted sheet for its open pages and recognises a rename', async () => {
+    const { dir, store, frames } = await storeWith({ 'old.md': 'the same text' });
+    await writeFile(path.join(dir, 'new.md'), 'the same text');
+    await rm(path.join(dir, 'old.md'));
+    store.handle({ kind: 'added', file: 'new.md' });
+    await store.whenEvaluated('new.md');
+    store.handle({ kind: 'removed', file: 'old.md' });
+    const gone = frames.filter((f) => f.sheet === 'old.md').at(-1)!;
+    expect(gone.condition).toMatchObject({ gone: true, stale: true, movedTo: 'new.md' });
+    expect(store.has('old.md')).toBe(false);
+    expect(store.knows('old.md')).toBe(true);
+    expect(store.index().map((e) => e.path)).toEqual(['new.md']);
+  });
+
+  it('does not call a deletion a rename when the texts differ', async () => {
+    const { dir, store, frames } = await storeWith({ 'old.md': 'first' });
+    await writeFile(path.join(dir, 'new.md'), 'second');
+    store.handle({ kind: 'added', file: 'new.md' });
+    await store.whenEvaluated('new.md');
+    store.handle({ kind: 'removed', file: 'old.md' });
+    expect(frames.filter((f) => f.sheet === 'old.md').at(-1)!.condition).toMatchObject({ gone: true, movedTo: null });
+  });
+
+  it('evaluates a sheet someone follows before the others', async () => {
+    const { store, renderer } = await storeWith({ 'a.md': 'a', 'b.md': 'b', 'c.md': 'c' });
+    renderer.delayMs = 20;
+    store.isFollowed = (sheet) => sheet === 'c.md';
+    const before = renderer.calls.length;
+    store.handle({ kind: 'changed', file: 'a.md' });
+    await waitFor('a.md being evaluated', () => renderer.calls.length === before + 1);
+    store.handle({ kind: 'changed', file: 'b.md' });
+    store.handle({ kind: 'changed', file: 'c.md' });
+    await waitFor('three evaluations', () => renderer.calls.length === before + 3);
+    // While a.md is evaluated, c.md (followed) jumps ahead of b.md.
+    expect(renderer.calls.slice(before).map((c) => path.basename(c.opts.path!))).toEqual(['a.md', 'c.md', 'b.md']);
+  });
+});

@@ -1,0 +1,93 @@
+// Applies a sheet frame from the server to the page. Only parts whose hash
+// changed are replaced; parts are added, moved and removed to follow the
+// server's order. The reader's place is kept: the first part in view stays
+// where it was on screen, and opened <details> stay open.
+
+/**
+ * @typedef {{key: string, hash: string, html?: string}} PartFrame
+ * @typedef {{stale: boolean, failure: string | null, gone: boolean, movedTo: string | null,
+ *            evaluatedAt: string | null, elapsedMs: number | null}} SheetCondition
+ * @typedef {{type: 'sheet', sheet: string, version: number, base: number | null, title: string,
+ *            parts: PartFrame[], headerHtml: string | null, summaryHtml: string | null,
+ *            condition: SheetCondition}} SheetFrame
+ */
+
+/**
+ * @param {HTMLElement} main
+ * @param {SheetFrame} frame
+ * @returns {boolean} false when the frame cannot be applied and a complete one is needed
+ */
+export function patchParts(main, frame) {
+  /** @type {Map<string, HTMLElement>} */
+  const existing = new Map();
+  for (const child of main.children) {
+    if (child instanceof HTMLElement && child.dataset.key) existing.set(child.dataset.key, child);
+  }
+  for (const part of frame.parts) {
+    if (existing.get(part.key)?.dataset.hash !== part.hash && part.html === undefined) return false;
+  }
+  const anchor = findAnchor(main);
+
+  /** @type {Element | null} */
+  let previous = null;
+  for (const part of frame.parts) {
+    let element = existing.get(part.key);
+    existing.delete(part.key);
+    if (!element) {
+      element = document.createElement('div');
+      element.className = 'ws-part live-part';
+      element.dataset.key = part.key;
+    }
+    if (element.dataset.hash !== part.hash && part.html !== undefined) {
+      replaceContent(element, part.html);
+      element.dataset.hash = part.hash;
+    }
+    const expected = previous ? previous.nextElementSibling : main.firstElementChild;
+    if (expected !== element) main.insertBefore(element, expected);
+    previous = element;
+  }
+  for (const leftover of existing.values()) leftover.remove();
+
+  if (anchor) restoreAnchor(main, anchor);
+  return true;
+}
+
+/** Replaces an element's content, keeping open the <details> that were open. */
+export function replaceContent(element, html) {
+  const open = new Set();
+  element.querySelectorAll('details').forEach((d, i) => {
+    if (d.open) open.add(detailsId(d, i));
+  });
+  element.innerHTML = html;
+  if (open.size === 0) return;
+  element.querySelectorAll('details').forEach((d, i) => {
+    if (open.has(detailsId(d, i))) d.open = true;
+  });
+}
+
+/** @param {HTMLDetailsElement} details @param {number} index */
+function detailsId(details, index) {
+  const summary = details.querySelector('summary');
+  return details.id || (summary ? `s:${summary.textContent?.trim()}` : `i:${index}`);
+}
+
+/** The first part at least partly in view and its distance from the top. */
+function findAnchor(main) {
+  if (window.scrollY === 0) return null;
+  for (const child of main.children) {
+    if (!(child instanceof HTMLElement)) continue;
+    const rect = child.getBoundingClientRect();
+    if (rect.bottom > 0) return { key: child.dataset.key, top: rect.top };
+  }
+  return null;
+}
+
+function restoreAnchor(main, anchor) {
+  for (const child of main.children) {
+    if (child instanceof HTMLElement && child.dataset.key === anchor.key) {
+      const shift = child.getBoundingClientRect().top - anchor.top;
+      if (Math.abs(shift) >= 1) window.scrollBy(0, shift);
+      return;
+    }
+  }
+}
