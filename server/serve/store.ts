@@ -254,7 +254,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
         return;
       }
       // Missing just now: the watcher reports the removal in a moment.
-      this.fail(record, `could not read the sheet: ${describe(error)}`);
+      this.fail(record, `Could not read the sheet: ${describe(error)}`);
       return;
     }
     let result: SheetResult;
@@ -262,7 +262,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
       result = await this.renderer.render(text, { path: file, root: this.realRoot });
     } catch (error) {
       record.lastText = text;
-      this.fail(record, `evaluation failed: ${describe(error)}`);
+      this.fail(record, `Evaluation failed: ${describe(error)}`);
       return;
     }
     if (this.closed) return;

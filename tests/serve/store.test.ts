@@ -70,7 +70,7 @@ describe('SheetStore', () => {
     await write('a.md', 'good\n\ncrash!');
     store.handle({ kind: 'changed', file: 'a.md' });
     const failed = await waitFor('the failure frame', () => frames[1]);
-    expect(failed.condition).toMatchObject({ stale: true, failure: 'evaluation failed: evaluation timed out after 2000 ms' });
+    expect(failed.condition).toMatchObject({ stale: true, failure: 'Evaluation failed: evaluation timed out after 2000 ms' });
     expect(failed.parts).toEqual([{ key: 'p0', hash: expect.any(String) }]);
     expect(store.index()[0]).toMatchObject({ state: 'failed', failure: expect.stringContaining('timed out') });
 
