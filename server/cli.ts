@@ -82,7 +82,7 @@ async function renderOne(sandbox: Sandbox, file: string, root: string): Promise<
 
 function failedResult(message: string): SheetResult {
   return {
-    title: '', meta: {}, html: '', parts: [], summaryHtml: '', elapsedMs: 0, reads: [], values: {}, checks: [],
+    title: '', meta: {}, html: '', caution: false, parts: [], summaryHtml: '', elapsedMs: 0, reads: [], values: {}, checks: [],
     summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, errors: 1 },
     errors: [{ line: 1, column: 1, message, code: 'limit' }],
   };

@@ -35,13 +35,15 @@ interface PartMemo {
 }
 
 /** Everything but the standalone page, which the caller frames. */
-export type SheetCore = Omit<SheetResult, 'html'> & { caution: boolean };
+export type SheetCore = Omit<SheetResult, 'html'> & { freshStatements?: number };
 
 const DEFINE_HEAD = /^\s*([A-Za-z_µμ\u0370-\u03ff][A-Za-z0-9_\u0370-\u03ff]*)\s*=(?!=)/;
 
 export class SheetSession {
   private readonly cache = new EvalCache();
   private readonly parts = new Map<string, PartMemo>();
+  /** Parsed lines by place and text: an unchanged line is not parsed again. */
+  private parsedLines = new Map<string, Statement | Diagnostic | null>();
   private readonly registry: Registry;
   private readonly limits: Limits;
 
@@ -59,7 +61,7 @@ export class SheetSession {
     const sig = sigfigs(meta.sigfigs);
     const { segments, links } = segment(body);
 
-    const parsed = parseBlocks(segments);
+    const parsed = this.parseBlocks(segments);
     const statements: Statement[] = [];
     const parseErrors: Diagnostic[] = [];
     const failedNames = new Map<string, number>();
@@ -164,6 +166,25 @@ export class SheetSession {
     } as SheetCore;
   }
 
+  private parseBlocks(segments: Segment[]): Parsed {
+    const blocks: Parsed['blocks'] = [];
+    const seen = new Map<string, Statement | Diagnostic | null>();
+    for (const seg of segments) {
+      if (seg.kind !== 'block') continue;
+      const items: Array<Statement | Diagnostic> = [];
+      for (const l of seg.lines) {
+        const key = `${l.line}\u0000${l.col}\u0000${l.text}`;
+        let item = this.parsedLines.get(key);
+        if (item === undefined) item = parseLine(l.text, l.line, l.col);
+        seen.set(key, item);
+        if (item) items.push(item);
+      }
+      blocks.push({ items, fenceLine: seg.fenceLine });
+    }
+    this.parsedLines = seen;
+    return { blocks };
+  }
+
   private prose(seg: Extract<Segment, { kind: 'prose' }>, links: Parameters<typeof proseHtml>[1], view: { sig: number; values: ReadonlyMap<string, Value> }, key: string, errors: ErrorJson[], problems: SummaryItem[], body: string): string {
     const memo = this.parts.get(key);
     let base: string;
@@ -236,27 +257,17 @@ function orderByLine(parts: string[]): string {
   return [...parts].sort((a, b) => line(a) - line(b)).join('');
 }
 
-function parseBlocks(segments: Segment[]): Parsed {
-  const blocks: Parsed['blocks'] = [];
-  for (const seg of segments) {
-    if (seg.kind !== 'block') continue;
-    const items: Array<Statement | Diagnostic> = [];
-    for (const l of seg.lines) {
-      try {
-        const s = parseStatement(l.text, l.line, l.col);
-        if (s) items.push(s);
-      } catch (e) {
-        if (!(e instanceof SheetError)) throw e;
-        const d = diagnostic(e, l.line) as Diagnostic & { name?: string; source?: string };
-        const head = DEFINE_HEAD.exec(l.text);
-        if (head) d.name = head[1];
-        d.source = l.text.trim();
-        items.push(d);
-      }
-    }
-    blocks.push({ items, fenceLine: seg.fenceLine });
+function parseLine(text: string, line: number, col: number): Statement | Diagnostic | null {
+  try {
+    return parseStatement(text, line, col);
+  } catch (e) {
+    if (!(e instanceof SheetError)) throw e;
+    const d = diagnostic(e, line) as Diagnostic & { name?: string; source?: string };
+    const head = DEFINE_HEAD.exec(text);
+    if (head) d.name = head[1];
+    d.source = text.trim();
+    return d;
   }
-  return { blocks };
 }
 
 function sigfigs(s: string | undefined): number {

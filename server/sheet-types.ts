@@ -59,6 +59,8 @@ export interface SheetResult {
   reads: string[];
   /** Milliseconds spent evaluating and rendering. */
   elapsedMs: number;
+  /** The sheet computes something that can hurt someone (loads …): show the planning caution. */
+  caution: boolean;
 }
 
 export interface RenderOptions {

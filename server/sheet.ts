@@ -18,8 +18,12 @@ export function standalonePage(core: SheetCore): string {
   });
 }
 
+/** The result with `html` built on first read: the live server never reads it. */
 export function withPage(core: SheetCore): SheetResult {
-  return { ...core, html: standalonePage(core) };
+  let html: string | undefined;
+  const result = { ...core } as unknown as SheetResult;
+  Object.defineProperty(result, 'html', { enumerable: true, get: () => (html ??= standalonePage(core)) });
+  return result;
 }
 
 export async function renderSheet(text: string, opts: RenderOptions = {}): Promise<SheetResult> {

@@ -11,15 +11,24 @@ export interface ChildRequest {
   limits: Limits;
 }
 
-export type ChildReply = { id: number; ok: true; core: SheetCore } | { id: number; ok: false; message: string };
+/** Parts the parent already has from this child are sent by key only. */
+export type WireCore = Omit<SheetCore, 'parts'> & { parts: Array<{ key: string; html?: string }> };
+
+export type ChildReply = { id: number; ok: true; core: WireCore } | { id: number; ok: false; message: string };
 
 const sessions = new Map<string, SheetSession>();
+/** What the parent holds for each session: part key → html last sent. */
+const sent = new Map<string, Map<string, string>>();
 const MAX_SESSIONS = 200;
 
 function sessionFor(key: string, limits: Limits): SheetSession {
   let s = sessions.get(key);
   if (!s) {
-    if (sessions.size >= MAX_SESSIONS) sessions.delete(sessions.keys().next().value!);
+    if (sessions.size >= MAX_SESSIONS) {
+      const oldest = sessions.keys().next().value!;
+      sessions.delete(oldest);
+      sent.delete(oldest);
+    }
     s = new SheetSession({ limits });
     sessions.set(key, s);
   }
@@ -31,7 +40,10 @@ process.on('message', (msg: ChildRequest) => {
   try {
     const key = `${msg.opts.path ?? ''}\u0000${JSON.stringify(msg.limits)}`;
     const core = sessionFor(key, msg.limits).render(msg.text, msg.opts);
-    reply = { id: msg.id, ok: true, core };
+    const before = sent.get(key) ?? new Map<string, string>();
+    const parts = core.parts.map((p) => (before.get(p.key) === p.html ? { key: p.key } : p));
+    sent.set(key, new Map(core.parts.map((p) => [p.key, p.html])));
+    reply = { id: msg.id, ok: true, core: { ...core, parts } };
   } catch (e) {
     reply = { id: msg.id, ok: false, message: e instanceof Error ? e.message : String(e) };
   }

@@ -8,7 +8,8 @@ import { fileURLToPath } from 'node:url';
 import { withPage } from '../sheet.js';
 import type { RenderOptions, SheetResult } from '../sheet-types.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
-import type { ChildReply, ChildRequest } from './sandbox-child.js';
+import type { ChildReply, ChildRequest, WireCore } from './sandbox-child.js';
+import type { SheetCore } from '../session.js';
 
 export interface SandboxOptions {
   /** Wall-clock limit per sheet (default 2000 ms). */
@@ -46,6 +47,8 @@ export class Sandbox {
   private closed = false;
   private readonly limits: Limits;
   private readonly heapMb: number;
+  /** Part html the current child has sent, per sheet path: it sends unchanged parts by key only. */
+  private parts = new Map<string, Map<string, string>>();
 
   constructor(options: SandboxOptions = {}) {
     this.limits = { ...DEFAULT_LIMITS, ...options.limits, timeoutMs: options.timeoutMs ?? options.limits?.timeoutMs ?? DEFAULT_LIMITS.timeoutMs };
@@ -69,6 +72,7 @@ export class Sandbox {
     if (this.ready) return this.ready;
     const execArgv = [`--max-old-space-size=${this.heapMb}`, '--stack-size=2000'];
     if (childPath.endsWith('.ts')) execArgv.push('--import', 'tsx');
+    this.parts = new Map(); // a new child remembers nothing, and sends every part
     const child = fork(childPath, [], { execArgv, stdio: ['ignore', 'ignore', 'pipe', 'ipc'], serialization: 'advanced' });
     this.child = child;
     let stderr = '';
@@ -126,14 +130,16 @@ export class Sandbox {
     }
     const child = this.child!;
     (child as unknown as { channel?: { ref(): void } }).channel?.ref();
-    // The interpreter stops itself at the time budget; this is the backstop.
+    // The interpreter stops itself at the time budget; this is the backstop for
+    // everything after evaluation (typesetting a large sheet's first render
+    // can take a few seconds on its own).
     this.timer = setTimeout(() => {
       if (this.busy !== job) return;
       this.busy = undefined;
       job.reject(new SandboxError('timeout', `evaluation took longer than ${this.limits.timeoutMs} ms and was stopped`));
       this.kill();
       void this.pump();
-    }, this.limits.timeoutMs + Math.max(1000, this.limits.timeoutMs));
+    }, Math.max(3 * this.limits.timeoutMs, this.limits.timeoutMs + 8000));
     child.send(job.req);
   }
 
@@ -143,9 +149,17 @@ export class Sandbox {
     this.busy = undefined;
     clearTimeout(this.timer);
     if (this.queue.length === 0) (this.child as unknown as { channel?: { unref(): void } } | undefined)?.channel?.unref();
-    if (m.ok) job.resolve(withPage(m.core));
+    if (m.ok) job.resolve(withPage(this.unwire(job.req, m.core)));
     else job.reject(new SandboxError('crash', m.message));
     void this.pump();
+  }
+
+  private unwire(req: ChildRequest, core: WireCore): SheetCore {
+    const key = `${req.opts.path ?? ''}\u0000${JSON.stringify(req.limits)}`;
+    const known = this.parts.get(key) ?? new Map<string, string>();
+    const parts = core.parts.map((p) => ({ key: p.key, html: p.html ?? known.get(p.key) ?? '' }));
+    this.parts.set(key, new Map(parts.map((p) => [p.key, p.html])));
+    return { ...core, parts };
   }
 
   private kill(): void {

@@ -7,7 +7,7 @@ import type { Value } from '../core/values.js';
 import { parseExpression } from '../parse/index.js';
 import { quantity } from '../units/quantity.js';
 import { evaluate, type Scope } from './interpreter.js';
-import { namesUsed, orderDefinitions } from './graph.js';
+import { namesUsed, orderDefinitions, type NameUse } from './graph.js';
 import { Budget, DEFAULT_LIMITS, type Limits } from './limits.js';
 
 export interface StatementResult {
@@ -70,12 +70,7 @@ function keyOf(s: Statement): string {
 export function evaluateSheet(statements: readonly Statement[], opts: EvalOptions): SheetEvaluation {
   const cache = opts.cache ?? new EvalCache();
   const budget = new Budget(opts.limits ?? DEFAULT_LIMITS);
-  const results = statements.map<StatementResult>((stmt) => ({
-    stmt,
-    warnings: [],
-    uses: [...new Set(namesUsed(stmt.expr).map((u) => u.name))],
-    fresh: false,
-  }));
+  const results = statements.map<StatementResult>((stmt) => ({ stmt, warnings: [], uses: usesOf(stmt), fresh: false }));
   const defs = new Map<string, StatementResult>();
   for (const r of results) {
     if (r.stmt.type !== 'define') continue;
@@ -113,7 +108,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       r.skipped = stopped;
       return;
     }
-    for (const u of namesUsed(r.stmt.expr)) {
+    for (const u of nameUsesOf(r.stmt)) {
       if (defs.has(u.name) || CONSTANTS.has(u.name) || broken.has(u.name)) continue;
       r.error = diagnostic(new SheetError('unknown-name', `\`${u.name}\` is not defined (line ${u.span.line})`, u.span), r.stmt.line);
       return;
@@ -175,6 +170,27 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   // Forget statements that left the sheet, so the cache follows the file.
   for (const key of cache.entries.keys()) if (!used.has(key)) cache.entries.delete(key);
   return { results, values, reads: [...reads], freshCount };
+}
+
+// Statements are immutable and reused across runs by the session's parse cache.
+const usesMemo = new WeakMap<Statement, { all: NameUse[]; names: string[] }>();
+
+function memoOf(s: Statement) {
+  let m = usesMemo.get(s);
+  if (!m) {
+    const all = namesUsed(s.expr);
+    m = { all, names: [...new Set(all.map((u) => u.name))] };
+    usesMemo.set(s, m);
+  }
+  return m;
+}
+
+function usesOf(s: Statement): string[] {
+  return memoOf(s).names;
+}
+
+function nameUsesOf(s: Statement): NameUse[] {
+  return memoOf(s).all;
 }
 
 function sameInputs(a: Value[], b: Value[]): boolean {

@@ -46,7 +46,18 @@ function listText(all: readonly Value[], sig: number): string {
   return `[${body.join(', ')}]${suffix}${long ? ` (${all.length} values)` : ''}`;
 }
 
+// Values are immutable and reused across runs, so their JSON is too.
+const jsonCache = new WeakMap<Value, { sig: number; json: ValueJson }>();
+
 export function valueJson(v: Value, sig: number): ValueJson {
+  const hit = jsonCache.get(v);
+  if (hit && hit.sig === sig) return hit.json;
+  const json = computeJson(v, sig);
+  jsonCache.set(v, { sig, json });
+  return json;
+}
+
+function computeJson(v: Value, sig: number): ValueJson {
   const display = displayText(v, sig);
   switch (v.kind) {
     case 'quantity':

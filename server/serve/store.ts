@@ -361,7 +361,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
 
 /** The engine flags sheets whose figures need a licensed engineer's check. */
 function hasCaution(result: SheetResult): boolean {
-  return (result as SheetResult & { caution?: boolean }).caution === true;
+  return result.caution;
 }
 
 function describe(error: unknown): string {
