@@ -192,7 +192,7 @@ export async function main(argv: string[]): Promise<number> {
     process.stdout.write(USAGE + '\n');
     return cmd ? 0 : 2;
   }
-  const run = COMMANDS[cmd];
+  const run = Object.hasOwn(COMMANDS, cmd) ? COMMANDS[cmd] : undefined;
   if (!run) {
     process.stderr.write(`unknown command "${cmd}"\n\n${USAGE}\n`);
     return 2;

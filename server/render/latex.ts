@@ -11,7 +11,8 @@ export interface LatexContext {
   valueFor?: (e: Expr) => Value | undefined;
 }
 
-const FUNCS: Record<string, (args: string[]) => string> = {
+// A Map, not an object: callee names come from sheet text ("hasOwnProperty" …).
+const FUNCS = new Map<string, (args: string[]) => string>(Object.entries({
   sqrt: ([a]) => `\\sqrt{${a}}`,
   abs: ([a]) => `\\left|${a}\\right|`,
   exp: ([a]) => `e^{${a}}`,
@@ -20,7 +21,7 @@ const FUNCS: Record<string, (args: string[]) => string> = {
   sin: ([a]) => `\\sin\\left(${a}\\right)`,
   cos: ([a]) => `\\cos\\left(${a}\\right)`,
   tan: ([a]) => `\\tan\\left(${a}\\right)`,
-};
+} satisfies Record<string, (args: string[]) => string>));
 
 const REL: Record<string, string> = { '<': '<', '<=': '\\le', '>': '>', '>=': '\\ge', '==': '=', '!=': '\\ne' };
 
@@ -129,7 +130,7 @@ export function exprLatex(e: Expr, ctx: LatexContext): string {
       return e.operands.map((o, i) => (i === 0 ? sub(o) : ` ${REL[e.ops[i - 1]!]} ${sub(o)}`)).join('');
     case 'call': {
       const args = e.args.map((a) => (a.name ? `${symbolLatex(a.name)}{=}${sub(a.value)}` : sub(a.value)));
-      const special = FUNCS[e.callee];
+      const special = FUNCS.get(e.callee);
       if (special && e.args.every((a) => !a.name)) return special(args);
       return `\\operatorname{${e.callee.replace(/_/g, '\\_')}}\\left(${args.join(',\\ ')}\\right)`;
     }

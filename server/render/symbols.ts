@@ -6,7 +6,7 @@ const GREEK = new Set([
 ]);
 // Dimensionless groups are set upright by convention (ISO 80000-11).
 const GROUPS = new Set(['Re', 'Ma', 'St', 'Fr', 'Pr', 'Co', 'Eu', 'Sr', 'Kn', 'We', 'Gr', 'Ra', 'Nu', 'Pe', 'Sc', 'Ri']);
-const SUB_WORDS: Record<string, string> = { inf: '\\infty', infty: '\\infty', 0: '0' };
+const SUB_WORDS = new Map([['inf', '\\infty'], ['infty', '\\infty']]);
 
 function escapeText(s: string): string {
   return s.replace(/[\\{}$&#^_%~]/g, (c) => `\\${c === '\\' ? 'backslash' : c}`).replace(/\\backslash/g, '\\textbackslash{}');
@@ -23,7 +23,8 @@ function base(word: string): string {
 }
 
 function subscript(part: string): string {
-  if (SUB_WORDS[part]) return SUB_WORDS[part]!;
+  const word = SUB_WORDS.get(part);
+  if (word) return word;
   if (GREEK.has(part)) return `\\${part}`;
   if (/^\d+$/.test(part) || part.length === 1) return part;
   return `\\text{${escapeText(part)}}`;

@@ -70,3 +70,21 @@ describe('incremental evaluation', () => {
     expect(second.values.Re!.si).toBeCloseTo((14 * 4.2) / 1.5e-5, 6);
   });
 });
+
+describe('no way out to JavaScript', () => {
+  it('never resolves names, fields or calls to JavaScript object properties', async () => {
+    const r = await sheet([
+      'a = constructor',
+      'b = __proto__',
+      'air_x = air(T: 15 degC)',
+      'c = air_x.constructor',
+      'd = air_x.__proto__',
+      'e = toString(1)',
+      'f = hasOwnProperty(1)',
+      'g = air_x.rho.valueOf',
+    ]);
+    expect(r.errors.map((e) => e.code)).toEqual(['unknown-name', 'unknown-name', 'unknown-name', 'unknown-name', 'unknown-function', 'unknown-function', 'type']);
+    expect(r.values.a).toBeUndefined();
+    expect(r.values.c).toBeUndefined();
+  });
+});
