@@ -44,6 +44,8 @@ export class SheetSession {
   private readonly parts = new Map<string, PartMemo>();
   /** Parsed lines by place and text: an unchanged line is not parsed again. */
   private parsedLines = new Map<string, Statement | Diagnostic | null>();
+  /** Rendered statements of the last run, by line and text. */
+  private statements = new Map<string, PartMemo>();
   private readonly registry: Registry;
   private readonly limits: Limits;
 
@@ -101,31 +103,34 @@ export class SheetSession {
         return;
       }
       const block = parsed.blocks[blockIndex++]!;
-      const htmlParts: string[] = [];
-      const memoInputs: unknown[] = [];
+      // A block whose statements all kept their inputs keeps its HTML string
+      // (cheap to compare downstream); otherwise each statement is memoised on its own.
+      const inputs: unknown[] = [];
       for (const item of block.items) {
-        if (!('type' in item)) {
-          htmlParts.push(`<div class="ws-stmt ws-broken" id="L${item.line}" data-line="${item.line}">${errorHtml(item.message, item.line, item.column, (item as Diagnostic & { source?: string }).source)}</div>`);
-          memoInputs.push(item.message, item.line, item.column);
-          continue;
-        }
-        const r = byLine.get(item.line)!;
-        memoInputs.push(...statementInputs(r, evaluation.values));
+        if ('type' in item) statementInputs(byLine.get(item.line)!, evaluation.values, inputs);
+        else inputs.push(item.message, item.line, item.column);
       }
       const key = `b${i}`;
       const memo = this.parts.get(key);
       let html: string;
-      if (memo && sameList(memo.inputs, memoInputs)) html = memo.html;
+      if (memo && sameList(memo.inputs, inputs)) html = memo.html;
       else {
-        for (const item of block.items) {
-          if ('type' in item) htmlParts.push(`<a id="L${item.line}" class="ws-anchor"></a>${statementHtml(byLine.get(item.line)!, view)}`);
-        }
-        html = `<div class="ws-block" data-fence-line="${block.fenceLine}">${orderByLine(htmlParts)}</div>`;
-        this.parts.set(key, { html, inputs: memoInputs });
+        const pieces = block.items.map((item) =>
+          'type' in item
+            ? this.statement(byLine.get(item.line)!, view)
+            : `<div class="ws-stmt ws-broken" id="L${item.line}" data-line="${item.line}">${errorHtml(item.message, item.line, item.column, (item as Diagnostic & { source?: string }).source)}</div>`,
+        );
+        html = `<div class="ws-block" data-fence-line="${block.fenceLine}">${pieces.join('')}</div>`;
+        this.parts.set(key, { html, inputs });
       }
       out.push({ key, html });
     });
 
+    // Forget statements that left the sheet, now and then rather than every run.
+    if (this.statements.size > 2 * statements.length + 100) {
+      const live = new Set(statements.map((st) => `${st.line}\u0000${st.source}`));
+      for (const k of this.statements.keys()) if (!live.has(k)) this.statements.delete(k);
+    }
     for (const d of parseErrors) {
       errors.push({ line: d.line, column: d.column, message: d.message, code: d.code });
       problems.push({ line: d.line, text: d.message, kind: 'error' });
@@ -164,6 +169,17 @@ export class SheetSession {
       caution: [...evaluation.values.values()].some(needsCaution) || meta.caution === 'true',
       freshStatements: evaluation.freshCount,
     } as SheetCore;
+  }
+
+  /** One statement's HTML, reused while its result and inputs are the same objects. */
+  private statement(r: StatementResult, view: { sig: number; values: ReadonlyMap<string, Value> }): string {
+    const key = `${r.stmt.line}\u0000${r.stmt.source}`;
+    const inputs = statementInputs(r, view.values, []);
+    const memo = this.statements.get(key);
+    if (memo && sameList(memo.inputs, inputs)) return memo.html;
+    const html = `<a id="L${r.stmt.line}" class="ws-anchor"></a>${statementHtml(r, view)}`;
+    this.statements.set(key, { html, inputs });
+    return html;
   }
 
   private parseBlocks(segments: Segment[]): Parsed {
@@ -244,17 +260,17 @@ function needsCaution(v: Value): boolean {
   return false;
 }
 
-function statementInputs(r: StatementResult, values: ReadonlyMap<string, Value>): unknown[] {
-  return [r.stmt.line, r.stmt.source, r.value, r.error?.message, r.error?.column, r.blockedBy, r.skipped, r.warnings, ...r.uses.map((n) => values.get(n))];
+/** What a statement's HTML depends on, appended to `out`. */
+function statementInputs(r: StatementResult, values: ReadonlyMap<string, Value>, out: unknown[]): unknown[] {
+  out.push(r.stmt.line, r.stmt.source, r.value, r.error?.message, r.error?.column, r.blockedBy, r.skipped, r.warnings.length ? r.warnings.join('\n') : '');
+  for (const n of r.uses) out.push(values.get(n));
+  return out;
 }
 
 function sameList(a: unknown[], b: unknown[]): boolean {
-  return a.length === b.length && a.every((x, i) => x === b[i] || (Array.isArray(x) && Array.isArray(b[i]) && x.length === 0 && (b[i] as unknown[]).length === 0));
-}
-
-function orderByLine(parts: string[]): string {
-  const line = (h: string) => Number(/data-line="(\d+)"/.exec(h)?.[1] ?? 0);
-  return [...parts].sort((a, b) => line(a) - line(b)).join('');
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
 }
 
 function parseLine(text: string, line: number, col: number): Statement | Diagnostic | null {

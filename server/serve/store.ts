@@ -274,7 +274,12 @@ export class SheetStore extends EventEmitter<StoreEvents> {
 
   private accept(record: SheetRecord, result: SheetResult): void {
     const previous = new Map(record.parts.map((p) => [p.key, p.hash]));
-    const parts = result.parts.map((p) => ({ key: p.key, hash: hashHtml(p.html), html: p.html }));
+    const before = new Map(record.parts.map((p) => [p.key, p]));
+    // Unchanged parts arrive as the very same strings: keep their hash instead of rehashing megabytes.
+    const parts = result.parts.map((p) => {
+      const old = before.get(p.key);
+      return { key: p.key, hash: old && old.html === p.html ? old.hash : hashHtml(p.html), html: p.html };
+    });
     const title = result.title || result.meta.title || path.posix.basename(record.path, '.md');
     const header = headerHtml(title, result.meta) + (hasCaution(result) ? cautionHtml() : '');
     const changed = { header: header !== record.headerHtml, summary: result.summaryHtml !== record.summaryHtml };
