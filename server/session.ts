@@ -10,7 +10,7 @@ import { EvalCache, evaluateSheet, type StatementResult } from './evaluate/sheet
 import { evaluate } from './evaluate/interpreter.js';
 import { Budget, DEFAULT_LIMITS, type Limits } from './evaluate/limits.js';
 import { splitFrontMatter } from './read/front-matter.js';
-import { normaliseNewlines, segment, type Segment } from './read/segments.js';
+import { normaliseNewlines, resegment, segment, type Segment, type Segmented } from './read/segments.js';
 import { dataReader, projectPath } from './read/data-files.js';
 import { statementHtml, errorHtml, isLiteral } from './render/statement.js';
 import { inlineValueSpans, proseHtml } from './render/prose.js';
@@ -44,6 +44,9 @@ export class SheetSession {
   private readonly parts = new Map<string, PartMemo>();
   /** Parsed lines by place and text: an unchanged line is not parsed again. */
   private parsedLines = new Map<string, Statement | Diagnostic | null>();
+  /** The last body text and its segments, for cheap re-segmenting after an edit inside a block. */
+  private lastBody: string | undefined;
+  private lastSegments: Segmented | undefined;
   /** Rendered statements of the last run, by line and text. */
   private statements = new Map<string, PartMemo>();
   private readonly registry: Registry;
@@ -61,7 +64,10 @@ export class SheetSession {
     const root = resolve(opts.root ?? sheetDir);
     const { meta, body, problem } = splitFrontMatter(normaliseNewlines(text));
     const sig = sigfigs(meta.sigfigs);
-    const { segments, links } = segment(body);
+    const segmented = this.lastBody !== undefined && this.lastSegments ? resegment(this.lastBody, this.lastSegments, body) : segment(body);
+    this.lastBody = body;
+    this.lastSegments = segmented;
+    const { segments, links } = segmented;
 
     const parsed = this.parseBlocks(segments);
     const statements: Statement[] = [];

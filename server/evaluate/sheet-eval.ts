@@ -50,6 +50,8 @@ export class EvalCache {
   entries = new Map<string, CacheEntry>();
   /** Parameter defaults: evaluated once, they never change. */
   readonly defaults = new Map<string, Value>();
+  /** Dependency order of the last run's statements. */
+  order?: { statements: readonly Statement[]; order: string[]; cycles: Map<string, string[]> };
 }
 
 const CONSTANTS: ReadonlyMap<string, Value> = new Map([['pi', quantity(Math.PI)]]);
@@ -61,10 +63,6 @@ export interface SheetEvaluation {
   reads: string[];
   /** Statements computed afresh in this run. */
   freshCount: number;
-}
-
-function keyOf(s: Statement): string {
-  return `${s.type}\u0000${s.source}`;
 }
 
 export function evaluateSheet(statements: readonly Statement[], opts: EvalOptions): SheetEvaluation {
@@ -85,8 +83,15 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     defs.set(r.stmt.name, r);
   }
 
-  const deps = new Map([...defs].map(([n, r]) => [n, r.uses]));
-  const { order, cycles } = orderDefinitions(new Map([...defs].map(([n, r]) => [n, r.stmt])), deps);
+  // The order depends only on the statements: when the parse cache hands back
+  // the very same statements, the last run's order still holds.
+  let ordered = cache.order;
+  if (!ordered || !sameStructure(ordered.statements, statements)) {
+    const deps = new Map([...defs].map(([n, r]) => [n, r.uses]));
+    ordered = { statements, ...orderDefinitions(new Map([...defs].map(([n, r]) => [n, r.stmt])), deps) };
+    cache.order = ordered;
+  }
+  const { order, cycles } = ordered;
   for (const [name, cycle] of cycles) {
     const r = defs.get(name)!;
     const stmt = r.stmt as Extract<Statement, { type: 'define' }>;
@@ -119,7 +124,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       return;
     }
     const inputs = r.uses.map((n) => values.get(n) ?? CONSTANTS.get(n)!);
-    const key = keyOf(r.stmt);
+    const key = memoOf(r.stmt).key;
     used.add(key);
     const hit = cache.entries.get(key);
     if (hit && sameInputs(hit.inputs, inputs) && readsUnchanged(hit.reads, opts.readData)) {
@@ -173,13 +178,13 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
 }
 
 // Statements are immutable and reused across runs by the session's parse cache.
-const usesMemo = new WeakMap<Statement, { all: NameUse[]; names: string[] }>();
+const usesMemo = new WeakMap<Statement, { all: NameUse[]; names: string[]; key: string }>();
 
 function memoOf(s: Statement) {
   let m = usesMemo.get(s);
   if (!m) {
     const all = namesUsed(s.expr);
-    m = { all, names: [...new Set(all.map((u) => u.name))] };
+    m = { all, names: [...new Set(all.map((u) => u.name))], key: `${s.type}\u0000${s.source}` };
     usesMemo.set(s, m);
   }
   return m;
@@ -191,6 +196,21 @@ function usesOf(s: Statement): string[] {
 
 function nameUsesOf(s: Statement): NameUse[] {
   return memoOf(s).all;
+}
+
+/** Same definitions using the same names, in the same places: the order still holds. */
+function sameStructure(a: readonly Statement[], b: readonly Statement[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) {
+    const x = a[i]!;
+    const y = b[i]!;
+    if (x === y) continue;
+    if (x.type !== y.type || (x.type === 'define' && y.type === 'define' && x.name !== y.name)) return false;
+    const ux = usesOf(x);
+    const uy = usesOf(y);
+    if (ux.length !== uy.length || ux.some((n, k) => n !== uy[k])) return false;
+  }
+  return true;
 }
 
 function sameInputs(a: Value[], b: Value[]): boolean {

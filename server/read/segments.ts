@@ -89,3 +89,36 @@ function blockLines(raw: string, startLine: number): BlockLine[] {
   }
   return out;
 }
+
+const FENCE_LIKE = /^\s*(`{3,}|~{3,})/;
+
+/**
+ * Segments of `next`, reusing `prev`'s when the edit only rewrote lines inside
+ * one basis block (the usual save: one input changed). Falls back to a full
+ * lex whenever the edit could change the document's structure.
+ */
+export function resegment(prevText: string, prev: Segmented, next: string): Segmented {
+  if (prevText === next) return prev;
+  const a = prevText.split('\n');
+  const b = next.split('\n');
+  if (a.length !== b.length) return segment(next);
+  let first = 0;
+  while (first < a.length && a[first] === b[first]) first++;
+  let last = a.length - 1;
+  while (last > first && a[last] === b[last]) last--;
+  // Lines first..last (0-based) differ; they must all be content lines of one block.
+  for (let i = first; i <= last; i++) if (FENCE_LIKE.test(a[i]!) || FENCE_LIKE.test(b[i]!)) return segment(next);
+  const lineFirst = first + 1;
+  const lineLast = last + 1;
+  const index = prev.segments.findIndex(
+    (s) => s.kind === 'block' && s.lines.length > 0 && s.lines[0]!.line <= lineFirst && s.lines[s.lines.length - 1]!.line >= lineLast,
+  );
+  if (index < 0) return segment(next);
+  const block = prev.segments[index] as Extract<Segment, { kind: 'block' }>;
+  // Indented fences strip their indentation from content lines: leave those to the full lex.
+  if (block.lines.some((l) => l.col !== 1)) return segment(next);
+  const lines = block.lines.map((l) => (l.line >= lineFirst && l.line <= lineLast ? { ...l, text: b[l.line - 1]! } : l));
+  const segments = prev.segments.slice();
+  segments[index] = { ...block, lines };
+  return { segments, links: prev.links };
+}
