@@ -42,7 +42,9 @@ export interface LiveFigures {
 }
 
 export async function benchLive(): Promise<LiveFigures[]> {
-  const sheets = [demoSheet(ROOT), generatedSheet()];
+  // WAKESHEET_BENCH_ONLY=demo or =large runs one of the two.
+  const only = process.env.WAKESHEET_BENCH_ONLY;
+  const sheets = [demoSheet(ROOT), generatedSheet()].filter((_, i) => !only || only === (i === 0 ? 'demo' : 'large'));
   const results: LiveFigures[] = [];
   for (const sheet of sheets) {
     const { full, oneInput, formulas } = await evaluationCost(sheet);
@@ -145,8 +147,9 @@ async function saveToPage(sheet: BenchSheet) {
       await page.evaluate(`window.benchExpect(${JSON.stringify(sheet.input)}, ${sheet.si(value)})`);
       const t0 = performance.timeOrigin + performance.now();
       await writeFile(file, sheet.text(value));
-      const seen = await page.waitForFunction(() => (window as unknown as { benchSeen: unknown }).benchSeen, null, { timeout: 30_000, polling: 5 });
-      const { dom, frame } = (await seen.jsonValue()) as { dom: number; frame: number };
+      // One awaited promise in the page instead of polling: polling over CDP
+      // would load the event loop that the server shares with this driver.
+      const { dom, frame } = (await page.evaluate('window.benchSeen')) as { dom: number; frame: number };
       toDom.push(dom - t0);
       toFrame.push(frame - t0);
       toEvalStart.push(renderer.last.start - t0);
@@ -178,7 +181,11 @@ const PROBE_SOURCE = `(() => {
   const now = () => performance.timeOrigin + performance.now();
   window.benchTarget = null;
   window.benchSeen = null;
-  window.benchExpect = (name, si) => { window.benchTarget = { name, si }; window.benchSeen = null; };
+  let settle = null;
+  window.benchExpect = (name, si) => {
+    window.benchTarget = { name, si };
+    window.benchSeen = new Promise((resolve) => { settle = resolve; });
+  };
   new MutationObserver(() => {
     const target = window.benchTarget;
     if (!target) return;
@@ -187,7 +194,7 @@ const PROBE_SOURCE = `(() => {
     if (!(Math.abs(si - target.si) <= 1e-9 * Math.abs(target.si))) return;
     const dom = now();
     window.benchTarget = null;
-    requestAnimationFrame(() => { window.benchSeen = { dom, frame: now() }; });
+    requestAnimationFrame(() => settle({ dom, frame: now() }));
   }).observe(document.querySelector('main'), { childList: true, subtree: true });
 })()`;
 

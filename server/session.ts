@@ -5,7 +5,7 @@ import { basename, dirname, resolve } from 'node:path';
 import { SheetError, diagnostic, type Diagnostic } from './diagnostics.js';
 import { createRegistry, type Registry } from './core/index.js';
 import type { Value } from './core/values.js';
-import { parseExpression, parseStatement, type Statement } from './parse/index.js';
+import { parseExpression, parseStatement, type Expr, type Statement } from './parse/index.js';
 import { EvalCache, evaluateSheet, type StatementResult } from './evaluate/sheet-eval.js';
 import { evaluate } from './evaluate/interpreter.js';
 import { Budget, DEFAULT_LIMITS, type Limits } from './evaluate/limits.js';
@@ -188,6 +188,19 @@ export class SheetSession {
     return html;
   }
 
+  private readonly inlineParsed = new Map<string, Expr>();
+
+  private inlineExpr(text: string, line: number): Expr {
+    const key = `${line}\u0000${text}`;
+    let e = this.inlineParsed.get(key);
+    if (!e) {
+      if (this.inlineParsed.size > 2000) this.inlineParsed.clear();
+      e = parseExpression(text, line);
+      this.inlineParsed.set(key, e);
+    }
+    return e;
+  }
+
   private parseBlocks(segments: Segment[]): Parsed {
     const blocks: Parsed['blocks'] = [];
     const seen = new Map<string, Statement | Diagnostic | null>();
@@ -227,7 +240,7 @@ export class SheetSession {
 
   private inlineValue(exprText: string, line: number, view: { sig: number; values: ReadonlyMap<string, Value> }, errors: ErrorJson[], problems: SummaryItem[]): string {
     try {
-      const e = parseExpression(exprText.trim(), line);
+      const e = this.inlineExpr(exprText.trim(), line);
       const v = evaluate(e, {
         registry: this.registry,
         budget: new Budget({ ...this.limits, maxSteps: 100_000 }),

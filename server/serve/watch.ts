@@ -28,7 +28,7 @@ export interface FolderWatcherOptions {
   removeGraceMs?: number;
 }
 
-const DEFAULTS = { debounceMs: 4, settleMs: 60, removeGraceMs: 40 };
+const DEFAULTS = { debounceMs: 1, settleMs: 60, removeGraceMs: 40 };
 
 /** Hidden files, editor backups and dependency folders are never sheets or data. */
 export function isIgnoredName(name: string): boolean {
