@@ -6,7 +6,7 @@ import { SheetError, diagnostic, type Diagnostic } from './diagnostics.js';
 import { createRegistry, type Registry } from './core/index.js';
 import type { Value } from './core/values.js';
 import { parseExpression, parseStatement, type Expr, type Statement } from './parse/index.js';
-import { EvalCache, evaluateSheet, type StatementResult } from './evaluate/sheet-eval.js';
+import { CONSTANTS, EvalCache, evaluateSheet, type StatementResult } from './evaluate/sheet-eval.js';
 import { evaluate } from './evaluate/interpreter.js';
 import { Budget, DEFAULT_LIMITS, type Limits } from './evaluate/limits.js';
 import { splitFrontMatter } from './read/front-matter.js';
@@ -15,7 +15,7 @@ import { dataReader, projectPath } from './read/data-files.js';
 import { statementHtml, errorHtml, isLiteral } from './render/statement.js';
 import { inlineValueSpans, proseHtml } from './render/prose.js';
 import { summaryHtml, type SummaryItem } from './render/page.js';
-import { displayText, valueHtml, valueJson } from './render/values.js';
+import { dataAttrs, displayText, valueHtml, valueJson } from './render/values.js';
 import { esc } from './render/html.js';
 import type { CheckJson, ErrorJson, RenderOptions, SheetPart, SheetResult, ValueJson } from './sheet-types.js';
 
@@ -105,7 +105,7 @@ export class SheetSession {
     let results = 0;
     segments.forEach((seg, i) => {
       if (seg.kind === 'prose') {
-        out.push({ key: `t${i}`, html: this.prose(seg, links, view, `t${i}`, errors, problems, body) });
+        out.push({ key: `t${i}`, html: this.prose(seg, links, view, `t${i}`, errors, problems) });
         return;
       }
       const block = parsed.blocks[blockIndex++]!;
@@ -220,7 +220,7 @@ export class SheetSession {
     return { blocks };
   }
 
-  private prose(seg: Extract<Segment, { kind: 'prose' }>, links: Parameters<typeof proseHtml>[1], view: { sig: number; values: ReadonlyMap<string, Value> }, key: string, errors: ErrorJson[], problems: SummaryItem[], body: string): string {
+  private prose(seg: Extract<Segment, { kind: 'prose' }>, links: Parameters<typeof proseHtml>[1], view: { sig: number; values: ReadonlyMap<string, Value> }, key: string, errors: ErrorJson[], problems: SummaryItem[]): string {
     const memo = this.parts.get(key);
     let base: string;
     if (memo && memo.inputs[0] === seg.raw) base = memo.inputs[1] as string;
@@ -232,7 +232,7 @@ export class SheetSession {
     if (spans.length === 0) return base;
     let html = base;
     for (const s of spans) {
-      const line = lineOf(body, seg, s.expr);
+      const line = lineOf(seg, s.expr);
       html = html.replace(s.match, () => this.inlineValue(s.expr, line, view, errors, problems));
     }
     return html;
@@ -246,14 +246,14 @@ export class SheetSession {
         budget: new Budget({ ...this.limits, maxSteps: 100_000 }),
         context: { readData: () => { throw new SheetError('data-file', 'inline values cannot read data files'); }, warn: () => {} },
         lookup: (name, span) => {
-          const x = view.values.get(name) ?? (name === 'pi' ? { kind: 'quantity', si: Math.PI, dims: [0, 0, 0, 0, 0, 0, 0] } as Value : undefined);
+          const x = view.values.get(name) ?? CONSTANTS.get(name);
           if (!x) throw new SheetError('unknown-name', `\`${name}\` has no value (line ${span.line})`, span);
           return x;
         },
         defaultOf: () => { throw new SheetError('syntax', 'inline values cannot call functions with defaults'); },
       });
       if (v.kind === 'record' || v.kind === 'figure' || v.kind === 'table') return valueHtml(exprText.trim(), v, view.sig);
-      return `<span class="ws-inline"${dataOf(exprText.trim(), v)}>${esc(displayText(v, view.sig))}</span>`;
+      return `<span class="ws-inline"${dataAttrs(exprText.trim(), v)}>${esc(displayText(v, view.sig))}</span>`;
     } catch (err) {
       if (!(err instanceof SheetError)) throw err;
       const d = diagnostic(err, line);
@@ -262,15 +262,6 @@ export class SheetSession {
       return `<span class="ws-inline ws-inline-error" title="${esc(d.message)}">=${esc(exprText)} ⚠ ${esc(d.message)}</span>`;
     }
   }
-}
-
-function dataOf(name: string, v: Value): string {
-  const a: Record<string, string> = { 'data-name': name };
-  if (v.kind === 'quantity') {
-    a['data-si'] = String(v.si);
-    a['data-unit'] = valueJson(v, 4).unit;
-  }
-  return Object.entries(a).map(([k, x]) => ` ${k}="${esc(x)}"`).join('');
 }
 
 function needsCaution(v: Value): boolean {
@@ -314,12 +305,11 @@ function firstHeading(body: string): string | undefined {
   return /^#\s+(.+)$/m.exec(body)?.[1]?.trim();
 }
 
-function lineOf(body: string, seg: Extract<Segment, { kind: 'prose' }>, expr: string): number {
+function lineOf(seg: Extract<Segment, { kind: 'prose' }>, expr: string): number {
   const idx = seg.raw.indexOf('`=' + expr);
   if (idx < 0) return seg.firstLine;
   let n = seg.firstLine;
   for (let i = 0; i < idx; i++) if (seg.raw.charCodeAt(i) === 10) n++;
-  void body;
   return n;
 }
 

@@ -1,20 +1,8 @@
 // The sandbox child: a warm process with a capped heap that runs the whole
 // pipeline. One session per sheet path keeps the incremental caches warm.
-import { SheetSession, type SheetCore } from '../session.js';
+import { SheetSession } from '../session.js';
 import type { Limits } from './limits.js';
-import type { RenderOptions } from '../sheet-types.js';
-
-export interface ChildRequest {
-  id: number;
-  text: string;
-  opts: RenderOptions;
-  limits: Limits;
-}
-
-/** Parts the parent already has from this child are sent by key only. */
-export type WireCore = Omit<SheetCore, 'parts'> & { parts: Array<{ key: string; html?: string }> };
-
-export type ChildReply = { id: number; ok: true; core: WireCore } | { id: number; ok: false; message: string };
+import { sessionKey, type ChildReply, type ChildRequest } from './sandbox-wire.js';
 
 const sessions = new Map<string, SheetSession>();
 /** What the parent holds for each session: part key → html last sent. */
@@ -38,7 +26,7 @@ function sessionFor(key: string, limits: Limits): SheetSession {
 process.on('message', (msg: ChildRequest) => {
   let reply: ChildReply;
   try {
-    const key = `${msg.opts.path ?? ''}\u0000${JSON.stringify(msg.limits)}`;
+    const key = sessionKey(msg);
     const core = sessionFor(key, msg.limits).render(msg.text, msg.opts);
     const before = sent.get(key) ?? new Map<string, string>();
     const parts = core.parts.map((p) => (before.get(p.key) === p.html ? { key: p.key } : p));

@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { withPage } from '../sheet.js';
 import type { RenderOptions, SheetResult } from '../sheet-types.js';
 import { DEFAULT_LIMITS, type Limits } from './limits.js';
-import type { ChildReply, ChildRequest, WireCore } from './sandbox-child.js';
+import { sessionKey, type ChildReply, type ChildRequest, type WireCore } from './sandbox-wire.js';
 import type { SheetCore } from '../session.js';
 
 export interface SandboxOptions {
@@ -155,7 +155,7 @@ export class Sandbox {
   }
 
   private unwire(req: ChildRequest, core: WireCore): SheetCore {
-    const key = `${req.opts.path ?? ''}\u0000${JSON.stringify(req.limits)}`;
+    const key = sessionKey(req);
     const known = this.parts.get(key) ?? new Map<string, string>();
     const parts = core.parts.map((p) => ({ key: p.key, html: p.html ?? known.get(p.key) ?? '' }));
     this.parts.set(key, new Map(parts.map((p) => [p.key, p.html])));

@@ -54,7 +54,8 @@ export class EvalCache {
   order?: { statements: readonly Statement[]; order: string[]; cycles: Map<string, string[]> };
 }
 
-const CONSTANTS: ReadonlyMap<string, Value> = new Map([['pi', quantity(Math.PI)]]);
+/** Names every sheet has unless it defines them itself. */
+export const CONSTANTS: ReadonlyMap<string, Value> = new Map([['pi', quantity(Math.PI)]]);
 
 export interface SheetEvaluation {
   results: StatementResult[];

@@ -32,7 +32,6 @@ function isBasisFence(t: Token): t is Token & { type: 'code'; lang: string; raw:
 export function segment(text: string): Segmented {
   const tokens = new Lexer({ gfm: true }).lex(text);
   const segments: Segment[] = [];
-  let offset = 0;
   let line = 1;
   let prose: Token[] = [];
   let proseLine = 1;
@@ -52,11 +51,9 @@ export function segment(text: string): Segmented {
       prose.push(t);
       proseRaw += raw;
     }
-    offset += raw.length;
     line += countNewlines(raw);
   }
   flush();
-  void offset;
   return { segments, links: tokens.links };
 }
 
