@@ -1,10 +1,13 @@
 // Applies a sheet frame from the server to the page. Only parts whose hash
-// changed are replaced; parts are added, moved and removed to follow the
-// server's order. The reader's place is kept: the first part in view stays
-// where it was on screen, and opened <details> stay open.
+// changed are touched, and inside them only the nodes that differ (morph.js);
+// parts are added, moved and removed to follow the server's order. The
+// reader's place is kept: the first part in view stays where it was on
+// screen, and opened <details> stay open.
+import { prepareEdits } from './edits.js';
+import { morphContent } from './morph.js';
 
 /**
- * @typedef {{key: string, hash: string, html?: string}} PartFrame
+ * @typedef {{key: string, hash: string, html?: string, edits?: import('./edits.js').PartEdits}} PartFrame
  * @typedef {{stale: boolean, failure: string | null, gone: boolean, movedTo: string | null,
  *            evaluatedAt: string | null, elapsedMs: number | null}} SheetCondition
  * @typedef {{type: 'sheet', sheet: string, version: number, base: number | null, title: string,
@@ -23,8 +26,16 @@ export function patchParts(main, frame) {
   for (const child of main.children) {
     if (child instanceof HTMLElement && child.dataset.key) existing.set(child.dataset.key, child);
   }
+  // Everything is checked before anything changes, so a frame that does not
+  // fit leaves the page as it was.
+  /** @type {Map<string, () => void>} */
+  const edits = new Map();
   for (const part of frame.parts) {
-    if (existing.get(part.key)?.dataset.hash !== part.hash && part.html === undefined) return false;
+    const element = existing.get(part.key);
+    if (element?.dataset.hash === part.hash || part.html !== undefined) continue;
+    const apply = element && part.edits ? prepareEdits(element, part.edits) : null;
+    if (!apply) return false;
+    edits.set(part.key, apply);
   }
   const anchor = findAnchor(main);
 
@@ -38,8 +49,9 @@ export function patchParts(main, frame) {
       element.className = 'ws-part live-part';
       element.dataset.key = part.key;
     }
-    if (element.dataset.hash !== part.hash && part.html !== undefined) {
-      replaceContent(element, part.html);
+    if (element.dataset.hash !== part.hash) {
+      if (part.html !== undefined) replaceContent(element, part.html);
+      else edits.get(part.key)?.();
       element.dataset.hash = part.hash;
     }
     const expected = previous ? previous.nextElementSibling : main.firstElementChild;
@@ -52,13 +64,13 @@ export function patchParts(main, frame) {
   return true;
 }
 
-/** Replaces an element's content, keeping open the <details> that were open. */
+/** Brings an element's content up to date, keeping open the <details> that were open. */
 export function replaceContent(element, html) {
   const open = new Set();
   element.querySelectorAll('details').forEach((d, i) => {
     if (d.open) open.add(detailsId(d, i));
   });
-  element.innerHTML = html;
+  morphContent(element, html);
   if (open.size === 0) return;
   element.querySelectorAll('details').forEach((d, i) => {
     if (open.has(detailsId(d, i))) d.open = true;

@@ -1,6 +1,7 @@
 // Messages between the live server and the page, as JSON over one WebSocket
 // at /live. The browser client (web/*.js) mirrors these shapes by hand, so a
 // change here is a change there too.
+import type { PartEdits } from './html-edits.js';
 
 /** One part of a sheet's <main>, identified by its key and content hash. */
 export interface PartFrame {
@@ -9,6 +10,8 @@ export interface PartFrame {
   hash: string;
   /** Present when the receiver may not have this content yet. */
   html?: string;
+  /** Instead of html: small edits to the receiver's copy, when the markup kept its shape. */
+  edits?: PartEdits;
 }
 
 /** What the page shows around the sheet's content. */

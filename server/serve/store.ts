@@ -10,6 +10,7 @@ import path from 'node:path';
 import { cautionHtml, headerHtml } from '../render/page.js';
 import type { RenderOptions, SheetResult } from '../sheet-types.js';
 import { DependencyMap } from './deps.js';
+import { htmlEdits, type PartEdits } from './html-edits.js';
 import type { IndexEntry, PartFrame, SheetCondition, SheetFrameMessage, SheetState } from './protocol.js';
 import { resolveSheetFile, SheetPathError } from './security.js';
 import { isSheetFile, type FileEvent } from './watch.js';
@@ -273,7 +274,6 @@ export class SheetStore extends EventEmitter<StoreEvents> {
   }
 
   private accept(record: SheetRecord, result: SheetResult): void {
-    const previous = new Map(record.parts.map((p) => [p.key, p.hash]));
     const before = new Map(record.parts.map((p) => [p.key, p]));
     // Unchanged parts arrive as the very same strings: keep their hash instead of rehashing megabytes.
     const parts = result.parts.map((p) => {
@@ -292,9 +292,12 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     record.failure = null;
     record.state = 'ready';
     record.evaluatedAt = new Date().toISOString();
-    const frames: PartFrame[] = parts.map((p) =>
-      previous.get(p.key) === p.hash ? { key: p.key, hash: p.hash } : { key: p.key, hash: p.hash, html: p.html },
-    );
+    const frames: PartFrame[] = parts.map((p) => {
+      const old = before.get(p.key);
+      if (old?.hash === p.hash) return { key: p.key, hash: p.hash };
+      const edits = old ? htmlEdits(old.hash, old.html, p.html) : null;
+      return edits && editsAreSmaller(edits, p.html) ? { key: p.key, hash: p.hash, edits } : { key: p.key, hash: p.hash, html: p.html };
+    });
     this.publish(record, base, frames, changed.header ? header : null, changed.summary ? record.summaryHtml : null);
   }
 
@@ -362,6 +365,14 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     });
     this.emit('index');
   }
+}
+
+/** Edits win unless nearly everything changed (a rough size count, no serialising). */
+function editsAreSmaller(edits: PartEdits, html: string): boolean {
+  let size = 0;
+  for (const [, was, is] of edits.texts) size += was.length + is.length + 12;
+  for (const [, tag, name, value] of edits.attrs) size += tag.length + name.length + (value?.length ?? 0) + 16;
+  return size < html.length / 2;
 }
 
 /** The engine flags sheets whose figures need a licensed engineer's check. */

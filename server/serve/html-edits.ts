@@ -1,0 +1,177 @@
+// Turns "this part's html changed" into the few edits that make the page's
+// copy match, when the markup kept its shape: same elements in the same
+// order, only text and attribute values different. That is what a save that
+// changes an input usually does (digits inside formulas), and sending three
+// edited numbers instead of 40 KB of KaTeX markup spares the page parsing and
+// laying out the whole block again.
+//
+// The page finds nodes by their position in document order, so the edits
+// carry a fingerprint of the node sequence (`shape`). The page computes the
+// same fingerprint from its own DOM and refuses the edits when the two differ
+// (markup the browser's parser would restructure, such as a table without
+// <tbody>); it then asks for the complete frame instead.
+
+/** Edits that turn the html with hash `from` into the part's new html. */
+export interface PartEdits {
+  from: string;
+  /** FNV-1a of the node sequence: element names, and `#` for each text node. */
+  shape: string;
+  /** [text node index, old text, new text] */
+  texts: [number, string, string][];
+  /** [element index, element name, attribute name, new value or null to remove] */
+  attrs: [number, string, string, string | null][];
+}
+
+const ATTRIBUTE = /([^\s"'>/=]+)(?:\s*=\s*(?:"([^"]*)"|'([^']*)'|([^\s"'=<>`]+)))?/g;
+const NAMED_ENTITIES = new Map([
+  ['amp', '&'],
+  ['lt', '<'],
+  ['gt', '>'],
+  ['quot', '"'],
+  ['apos', "'"],
+  ['nbsp', '\u00a0'],
+]);
+const LT = 60;
+const GT = 62;
+const SLASH = 47;
+const QUOTE = 34;
+const BANG = 33;
+
+/**
+ * The edits from `before` to `after`, or null when the node sequence differs
+ * or the markup is not plain enough to be sure of it. One pass over both
+ * strings, token by token, with no token objects: this runs on every save.
+ */
+export function htmlEdits(fromHash: string, before: string, after: string): PartEdits | null {
+  const texts: PartEdits['texts'] = [];
+  const attrs: PartEdits['attrs'] = [];
+  const shape = new ShapeHash();
+  let element = -1;
+  let text = -1;
+  let i = 0;
+  let j = 0;
+  while (i < before.length && j < after.length) {
+    const iEnd = tokenEnd(before, i);
+    const jEnd = tokenEnd(after, j);
+    if (iEnd < 0 || jEnd < 0) return null;
+    const isTag = after.charCodeAt(j) === LT;
+    if (isTag !== (before.charCodeAt(i) === LT)) return null;
+    const same = iEnd - i === jEnd - j && before.startsWith(after.slice(j, jEnd), i);
+    if (!isTag) {
+      text++;
+      shape.text();
+      if (!same) {
+        const was = decodeEntities(before.slice(i, iEnd));
+        const is = decodeEntities(after.slice(j, jEnd));
+        if (was === null || is === null) return null;
+        texts.push([text, was, is]);
+      }
+    } else if (after.charCodeAt(j + 1) === SLASH) {
+      if (before.charCodeAt(i + 1) !== SLASH) return null;
+    } else {
+      const name = tagName(after, j);
+      if (before.charCodeAt(i + 1) === SLASH || (!same && tagName(before, i) !== name)) return null;
+      element++;
+      shape.element(name);
+      if (!same) {
+        const was = attributesOf(before.slice(i, iEnd), name.length);
+        const is = attributesOf(after.slice(j, jEnd), name.length);
+        if (!was || !is) return null;
+        for (const [attr, value] of is) if (was.get(attr) !== value) attrs.push([element, name, attr, value]);
+        for (const attr of was.keys()) if (!is.has(attr)) attrs.push([element, name, attr, null]);
+      }
+    }
+    i = iEnd;
+    j = jEnd;
+  }
+  if (i < before.length || j < after.length) return null;
+  return { from: fromHash, shape: shape.value(), texts, attrs };
+}
+
+/** FNV-1a over "name " per element and "# " per text node; web/edits.js computes the same from the DOM. */
+class ShapeHash {
+  private hash = 0x811c9dc5;
+  element(name: string): void {
+    for (let k = 0; k < name.length; k++) this.feed(name.charCodeAt(k));
+    this.feed(32);
+  }
+  text(): void {
+    this.feed(35);
+    this.feed(32);
+  }
+  value(): string {
+    return this.hash.toString(36);
+  }
+  private feed(code: number): void {
+    this.hash = Math.imul(this.hash ^ code, 0x01000193) >>> 0;
+  }
+}
+
+/**
+ * End of the token starting at `at`: a tag runs to its closing `>` outside
+ * double quotes, a text run to the next `<`. -1 for what this does not read
+ * (comments, doctypes, a `<` that starts no tag, a tag left open).
+ */
+function tokenEnd(html: string, at: number): number {
+  if (html.charCodeAt(at) !== LT) {
+    const next = html.indexOf('<', at);
+    return next < 0 ? html.length : next;
+  }
+  const second = html.charCodeAt(at + 1);
+  if (second === BANG || !(isLetter(second) || (second === SLASH && isLetter(html.charCodeAt(at + 2))))) return -1;
+  // Jump quote to quote: a '>' inside a double-quoted value does not end the tag.
+  let end = html.indexOf('>', at);
+  let quote = html.indexOf('"', at);
+  while (end >= 0 && quote >= 0 && quote < end) {
+    const closing = html.indexOf('"', quote + 1);
+    if (closing < 0) return -1;
+    if (closing > end) end = html.indexOf('>', closing);
+    quote = html.indexOf('"', closing + 1);
+  }
+  return end < 0 ? -1 : end + 1;
+}
+
+function isLetter(code: number): boolean {
+  return (code >= 65 && code <= 90) || (code >= 97 && code <= 122);
+}
+
+/** Lower-case element name of the start tag at `at`. */
+function tagName(html: string, at: number): string {
+  let k = at + 1;
+  while (k < html.length) {
+    const c = html.charCodeAt(k);
+    if (c === GT || c === SLASH || c === 32 || c === 9 || c === 10 || c === 12 || c === 13) break;
+    k++;
+  }
+  return html.slice(at + 1, k).toLowerCase();
+}
+
+function attributesOf(tag: string, nameLength: number): Map<string, string> | null {
+  const body = tag.slice(1 + nameLength, tag.endsWith('/>') ? -2 : -1);
+  const found = new Map<string, string>();
+  for (const m of body.matchAll(ATTRIBUTE)) {
+    const value = decodeEntities(m[2] ?? m[3] ?? m[4] ?? '');
+    if (value === null) return null;
+    if (!found.has(m[1]!)) found.set(m[1]!, value);
+  }
+  return found;
+}
+
+/** Text as the browser's parser reads it, or null for an entity this does not know. */
+export function decodeEntities(raw: string): string | null {
+  if (raw.includes('\r')) return null; // the parser folds line ends; leave that to a full update
+  if (!raw.includes('&')) return raw;
+  let unknown = false;
+  const decoded = raw.replace(/&(#[xX][0-9a-fA-F]+|#[0-9]+|[A-Za-z][A-Za-z0-9]*);?/g, (whole, body: string) => {
+    if (!whole.endsWith(';')) unknown = true;
+    if (body[0] === '#') {
+      const code = body[1] === 'x' || body[1] === 'X' ? parseInt(body.slice(2), 16) : parseInt(body.slice(1), 10);
+      if (!(code > 0 && code <= 0x10ffff) || (code >= 0xd800 && code <= 0xdfff)) unknown = true;
+      return unknown ? whole : String.fromCodePoint(code);
+    }
+    const named = NAMED_ENTITIES.get(body);
+    if (named === undefined) unknown = true;
+    return named ?? whole;
+  });
+  return unknown ? null : decoded;
+}

@@ -1,0 +1,57 @@
+// Applies the small edits the server sends when a part's markup kept its
+// shape (server/serve/html-edits.ts makes them). Nodes are found by position
+// in document order, so nothing is touched unless this part's own node
+// sequence has the fingerprint the server computed, and every text to change
+// still reads what the server says it did.
+
+/**
+ * @typedef {{from: string, shape: string,
+ *            texts: [number, string, string][],
+ *            attrs: [number, string, string, string | null][]}} PartEdits
+ */
+
+/**
+ * Checks the edits against the part and returns a function that applies
+ * them, or null when they do not fit (then the page asks for the full frame).
+ * @param {HTMLElement} part
+ * @param {PartEdits} edits
+ * @returns {(() => void) | null}
+ */
+export function prepareEdits(part, edits) {
+  if (part.dataset.hash !== edits.from) return null;
+  /** @type {Element[]} */
+  const elements = [];
+  /** @type {Text[]} */
+  const texts = [];
+  let hash = 0x811c9dc5;
+  const feed = (/** @type {string} */ s) => {
+    for (let i = 0; i < s.length; i++) {
+      hash ^= s.charCodeAt(i);
+      hash = Math.imul(hash, 0x01000193) >>> 0;
+    }
+  };
+  const walker = document.createTreeWalker(part, NodeFilter.SHOW_ELEMENT | NodeFilter.SHOW_TEXT);
+  for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+    if (node.nodeType === Node.TEXT_NODE) {
+      texts.push(/** @type {Text} */ (node));
+      feed('# ');
+    } else {
+      const element = /** @type {Element} */ (node);
+      elements.push(element);
+      feed(element.localName.toLowerCase() + ' ');
+    }
+  }
+  if (hash.toString(36) !== edits.shape) return null;
+  for (const [index, was] of edits.texts) if (texts[index]?.data !== was) return null;
+  for (const [index, tag] of edits.attrs) if (elements[index]?.localName.toLowerCase() !== tag) return null;
+
+  return () => {
+    for (const [index, , text] of edits.texts) texts[index].data = text;
+    for (const [index, tag, name, value] of edits.attrs) {
+      // The reader opened or closed this themselves: leave it so.
+      if (tag === 'details' && name === 'open') continue;
+      if (value === null) elements[index].removeAttribute(name);
+      else elements[index].setAttribute(name, value);
+    }
+  };
+}
