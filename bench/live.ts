@@ -11,9 +11,11 @@ import { fileURLToPath } from 'node:url';
 import katex from 'katex';
 import { marked } from 'marked';
 import { chromium } from 'playwright-core';
-import { Sandbox } from '../server/evaluate/sandbox.js';
-import { startServer, type SheetRenderer } from '../server/serve/index.js';
-import type { RenderOptions, SheetResult } from '../server/sheet-types.js';
+// The compiled server, as `npm start` runs it: from the TypeScript sources the
+// sandbox child would run under a loader that slows hot code down.
+import { Sandbox } from '../dist/server/evaluate/sandbox.js';
+import { startServer, type SheetRenderer } from '../dist/server/serve/index.js';
+import type { RenderOptions, SheetResult } from '../dist/server/sheet-types.js';
 import { demoSheet, generatedSheet, type BenchSheet } from './sheets.js';
 import { fmt, summarise, type Summary } from './stats.js';
 

@@ -8,14 +8,25 @@ export function localTime(iso) {
   return Number.isNaN(date.getTime()) ? '' : date.toLocaleTimeString();
 }
 
+/**
+ * Most evaluations finish in a few tens of milliseconds: saying "evaluating"
+ * for those only makes the bar flicker (and costs the browser frames while
+ * the evaluator wants the processor). Say it once one has taken this long.
+ */
+const EVALUATING_AFTER_MS = 150;
+
 /** @param {HTMLElement | null} element */
 export function createStatus(element) {
   const text = element?.querySelector('.live-status-text') ?? null;
   /** @type {string | null} */
   let lastUpdate = null;
+  /** @type {ReturnType<typeof setTimeout> | null} */
+  let pending = null;
 
   /** @param {'live' | 'evaluating' | 'offline' | 'connecting'} state @param {string} words */
   function show(state, words) {
+    if (pending !== null) clearTimeout(pending);
+    pending = null;
     if (!element || !text) return;
     element.dataset.state = state;
     text.textContent = words;
@@ -31,7 +42,8 @@ export function createStatus(element) {
       show('live', lastUpdate ? `live · updated ${localTime(lastUpdate)}` : 'live');
     },
     evaluating() {
-      show('evaluating', 'evaluating…');
+      if (pending !== null || element?.dataset.state === 'evaluating') return;
+      pending = setTimeout(() => show('evaluating', 'evaluating…'), EVALUATING_AFTER_MS);
     },
     /** @param {number} retryInMs */
     offline(retryInMs) {

@@ -8,7 +8,7 @@ import { startServer, type RunningServer, type ServeOptions } from '../../server
 import { makeFolder, put } from '../serve/helpers.js';
 import { describeInBrowser, launchBrowser, REBIND_HOST, type Browser } from './launch.js';
 import { valueShown, waitForStatus, waitForValue } from './probes.js';
-import { RUNAWAY, SandboxWithFaults, UnsanitisedRenderer, wingSheet } from './sheets.js';
+import { RUNAWAY, SandboxWithFaults, SLOW, UnsanitisedRenderer, wingSheet } from './sheets.js';
 
 
 describeInBrowser('live sheet page', () => {
@@ -55,6 +55,28 @@ describeInBrowser('live sheet page', () => {
     await waitForValue(page, 'Re', (13.5 * 4.2) / 1.47e-5);
     await waitForStatus(page, 'live');
     expect(await page.textContent('.live-status')).toMatch(/updated \d/);
+  });
+
+  it('says it is evaluating while a slow sheet runs, and not for a quick one', async () => {
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') }, { renderer: new SandboxWithFaults() });
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await waitForStatus(page, 'live');
+    await page.evaluate(() => {
+      const w = window as unknown as { states: string[] };
+      w.states = [];
+      const status = document.querySelector('.live-status') as HTMLElement;
+      new MutationObserver(() => w.states.push(status.dataset.state!)).observe(status, { attributes: true });
+    });
+    const states = () => page.evaluate(() => (window as unknown as { states: string[] }).states);
+
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('13 m/s'));
+    await waitForValue(page, 'U_inf', 13);
+    expect(await states()).not.toContain('evaluating'); // a quick evaluation does not flash the status
+
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('14 m/s', SLOW));
+    await waitForStatus(page, 'evaluating');
+    await waitForValue(page, 'U_inf', 14);
+    await waitForStatus(page, 'live');
   });
 
   it('keeps the scroll position and opened details across an update', async () => {

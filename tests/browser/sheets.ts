@@ -24,6 +24,8 @@ ${extra}
 
 /** A line that makes SandboxWithFaults fail the way a runaway sheet does. */
 export const RUNAWAY = '<!-- test: this sheet never finishes -->';
+/** A line that makes SandboxWithFaults take 800 ms longer, like a heavy sheet. */
+export const SLOW = '<!-- test: this sheet takes a while -->';
 
 /**
  * The real sandbox, except that a sheet containing RUNAWAY fails as a
@@ -35,6 +37,7 @@ export class SandboxWithFaults implements SheetRenderer {
 
   render(text: string, opts: RenderOptions): Promise<SheetResult> {
     if (text.includes(RUNAWAY)) return Promise.reject(new Error('evaluation timed out after 2000 ms'));
+    if (text.includes(SLOW)) return new Promise((r) => setTimeout(r, 800)).then(() => this.inner.render(text, opts));
     return this.inner.render(text, opts);
   }
 
