@@ -14,3 +14,16 @@ export function mathHtml(latex: string, display = false): string {
   cache.set(key, html);
   return html;
 }
+
+/**
+ * A chain of relations, `first = second = third …`, typeset piece by piece:
+ * after an input changes, the symbolic head of a result is unchanged and comes
+ * from the cache, and only the pieces with numbers in them are typeset again.
+ * Each later piece starts with `{}` so its relation keeps the spacing it has
+ * in one formula.
+ */
+export function chainHtml(first: string, rest: readonly string[], relation = '='): string {
+  let html = mathHtml(first);
+  for (const piece of rest) html += mathHtml(`{} ${relation} ${piece}`);
+  return html;
+}

@@ -4,7 +4,7 @@ import type { Expr, Statement } from '../parse/ast.js';
 import type { Value } from '../core/values.js';
 import type { StatementResult } from '../evaluate/sheet-eval.js';
 import { attrs, esc } from './html.js';
-import { mathHtml } from './katex.js';
+import { chainHtml, mathHtml } from './katex.js';
 import { exprLatex, valueLatex } from './latex.js';
 import { symbolLatex } from './symbols.js';
 import { dataAttrs, valueHtml } from './values.js';
@@ -110,7 +110,8 @@ function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'def
   if (subst && subst !== parts[parts.length - 1]) parts.push(subst);
   if (inline && (!literal || parts.length === 1)) parts.push(inline);
   const dedup = parts.filter((p, i) => i === 0 || p !== parts[i - 1]);
-  const formula = mathHtml(dedup.join(' = '));
+  // The name and its formula are one piece; substituted values and the result follow.
+  const formula = chainHtml(dedup.slice(0, 2).join(' = '), dedup.slice(2));
   return `${head}><div class="ws-formula">${formula}${descHtml(s.description)}</div>${block ?? ''}${warningsHtml(r)}</div>`;
 }
 
@@ -118,7 +119,7 @@ function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'chec
   const s = r.stmt;
   const symbolic = exprLatex(s.expr, { sig: view.sig });
   const subst = substituted(s.expr, view);
-  const formula = mathHtml(subst && subst !== symbolic ? `${symbolic} \\quad\\Longrightarrow\\quad ${subst}` : symbolic);
+  const formula = chainHtml(symbolic, subst && subst !== symbolic ? [subst] : [], '\\quad\\Longrightarrow\\quad');
   const label = s.label ? `<span class="ws-label">${esc(s.label)}</span>` : '';
   if (r.error) return `<div class="ws-stmt ws-check ws-check-error"${attrs({ 'data-line': s.line })}>${formula}${label}${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
   if (r.blockedBy || r.skipped) return `<div class="ws-stmt ws-check ws-check-blocked"${attrs({ 'data-line': s.line })}>${formula}${label}${blockedHtml(r)}</div>`;
@@ -136,8 +137,8 @@ function exprHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'expr'
   const v = r.value!;
   const { inline, block } = resultLatexOrBlock(name, v, view);
   const subst = substituted(s.expr, view);
-  const parts = [symbolic, ...(subst && subst !== symbolic ? [subst] : []), ...(inline && inline !== symbolic ? [inline] : [])];
-  return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}${inline ? dataAttrs(name, v) : ''}><div class="ws-formula">${mathHtml(parts.join(' = '))}${descHtml(s.description)}</div>${block ?? ''}${warningsHtml(r)}</div>`;
+  const rest = [...(subst && subst !== symbolic ? [subst] : []), ...(inline && inline !== symbolic ? [inline] : [])];
+  return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}${inline ? dataAttrs(name, v) : ''}><div class="ws-formula">${chainHtml(symbolic, rest)}${descHtml(s.description)}</div>${block ?? ''}${warningsHtml(r)}</div>`;
 }
 
 export function statementHtml(r: StatementResult, view: StatementView): string {

@@ -10,11 +10,23 @@ function annotations(html: string): string[] {
   return [...html.matchAll(/<annotation encoding="application\/x-tex">([^<]*)<\/annotation>/g)].map((m) => m[1]!.replace(/&amp;/g, '&'));
 }
 
+/** The TeX of the formula that starts with `head`, put back together from the pieces it is typeset in. */
+function formulaTex(html: string, head: string): string {
+  const all = annotations(html);
+  const start = all.findIndex((t) => t.startsWith(head));
+  let tex = all[start]!;
+  for (const piece of all.slice(start + 1)) {
+    if (!piece.startsWith('{} ')) break;
+    tex += piece.slice(2);
+  }
+  return tex;
+}
+
 describe('the Reynolds-number example', () => {
   it('renders formula, substituted values with units, and the result', async () => {
     const r = await sheet(['U_inf = 12 m/s', 'L = 4.2 m', 'nu = 1.47e-5 m^2/s', 'Re = U_inf * L / nu'], 'sigfigs: 3');
     const block = r.parts.find((p) => p.html.includes('data-name="Re"'))!.html;
-    const tex = annotations(block).find((t) => t.startsWith('\\mathrm{Re}'))!;
+    const tex = formulaTex(block, '\\mathrm{Re}');
     expect(tex).toBe(
       '\\mathrm{Re} = \\frac{{U}_{\\infty} \\cdot L}{\\nu} = \\frac{\\left(12\\,\\mathrm{m}/\\mathrm{s}\\right) \\cdot \\left(4.2\\,\\mathrm{m}\\right)}{1.47\\times 10^{-5}\\,\\mathrm{m}^{2}/\\mathrm{s}} = 3.43\\times 10^{6}',
     );
