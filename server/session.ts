@@ -8,6 +8,7 @@ import type { Value } from './core/values.js';
 import { parseExpression, parseStatement, type Expr, type Statement } from './parse/index.js';
 import { CONSTANTS, EvalCache, evaluateSheet, type StatementResult } from './evaluate/sheet-eval.js';
 import { evaluate } from './evaluate/interpreter.js';
+import { namesUsed } from './evaluate/graph.js';
 import { Budget, DEFAULT_LIMITS, type Limits } from './evaluate/limits.js';
 import { splitFrontMatter } from './read/front-matter.js';
 import { normaliseNewlines, resegment, segment, type Segment, type Segmented } from './read/segments.js';
@@ -188,14 +189,17 @@ export class SheetSession {
     return html;
   }
 
-  private readonly inlineParsed = new Map<string, Expr>();
+  /** Inline expressions by line and text: parsed once, with the names they read. */
+  private readonly inlineParsed = new Map<string, { expr: Expr; names: string[] }>();
+  /** The html of each inline value, reused while the values it reads are the same objects. */
+  private readonly inlineShown = new Map<string, PartMemo>();
 
-  private inlineExpr(text: string, line: number): Expr {
-    const key = `${line}\u0000${text}`;
+  private inlineExpr(key: string, text: string, line: number): { expr: Expr; names: string[] } {
     let e = this.inlineParsed.get(key);
     if (!e) {
       if (this.inlineParsed.size > 2000) this.inlineParsed.clear();
-      e = parseExpression(text, line);
+      const expr = parseExpression(text, line);
+      e = { expr, names: [...new Set(namesUsed(expr).map((u) => u.name))] };
       this.inlineParsed.set(key, e);
     }
     return e;
@@ -239,8 +243,13 @@ export class SheetSession {
   }
 
   private inlineValue(exprText: string, line: number, view: { sig: number; values: ReadonlyMap<string, Value> }, errors: ErrorJson[], problems: SummaryItem[]): string {
+    const key = `${line}\u0000${exprText.trim()}`;
     try {
-      const e = this.inlineExpr(exprText.trim(), line);
+      const { expr: e, names } = this.inlineExpr(key, exprText.trim(), line);
+      const inputs: unknown[] = [view.sig];
+      for (const n of names) inputs.push(view.values.get(n) ?? CONSTANTS.get(n));
+      const memo = this.inlineShown.get(key);
+      if (memo && sameList(memo.inputs, inputs)) return memo.html;
       const v = evaluate(e, {
         registry: this.registry,
         budget: new Budget({ ...this.limits, maxSteps: 100_000 }),
@@ -252,8 +261,13 @@ export class SheetSession {
         },
         defaultOf: () => { throw new SheetError('syntax', 'inline values cannot call functions with defaults'); },
       });
-      if (v.kind === 'record' || v.kind === 'figure' || v.kind === 'table') return valueHtml(exprText.trim(), v, view.sig);
-      return `<span class="ws-inline"${dataAttrs(exprText.trim(), v)}>${esc(displayText(v, view.sig))}</span>`;
+      const html =
+        v.kind === 'record' || v.kind === 'figure' || v.kind === 'table'
+          ? valueHtml(exprText.trim(), v, view.sig)
+          : `<span class="ws-inline"${dataAttrs(exprText.trim(), v)}>${esc(displayText(v, view.sig))}</span>`;
+      if (this.inlineShown.size > 2000) this.inlineShown.clear();
+      this.inlineShown.set(key, { html, inputs }); // only values that worked: errors must be reported every run
+      return html;
     } catch (err) {
       if (!(err instanceof SheetError)) throw err;
       const d = diagnostic(err, line);

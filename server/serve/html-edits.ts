@@ -39,27 +39,35 @@ const BANG = 33;
 
 /**
  * The edits from `before` to `after`, or null when the node sequence differs
- * or the markup is not plain enough to be sure of it. One pass over both
- * strings, token by token, with no token objects: this runs on every save.
+ * or the markup is not plain enough to be sure of it. One pass, token by
+ * token, with no token objects: this runs on every save. Where the two
+ * strings are the same (before the first difference and after the last) only
+ * one of them is read.
  */
 export function htmlEdits(fromHash: string, before: string, after: string): PartEdits | null {
   const texts: PartEdits['texts'] = [];
   const attrs: PartEdits['attrs'] = [];
-  const shape = new ShapeHash();
+  let shape = FNV_OFFSET;
+  const prefix = commonPrefix(before, after);
+  const shift = before.length - after.length;
+  const suffixStart = after.length - commonSuffix(before, after, prefix);
   let element = -1;
   let text = -1;
   let i = 0;
   let j = 0;
   while (i < before.length && j < after.length) {
-    const iEnd = tokenEnd(before, i);
     const jEnd = tokenEnd(after, j);
-    if (iEnd < 0 || jEnd < 0) return null;
+    if (jEnd < 0) return null;
+    // Inside the common prefix, or aligned inside the common suffix, both strings hold the same token.
+    const shared = jEnd <= prefix || (j >= suffixStart && i - j === shift);
+    const iEnd = shared ? jEnd + (i - j) : tokenEnd(before, i);
+    if (iEnd < 0) return null;
     const isTag = after.charCodeAt(j) === LT;
-    if (isTag !== (before.charCodeAt(i) === LT)) return null;
-    const same = iEnd - i === jEnd - j && before.startsWith(after.slice(j, jEnd), i);
+    if (!shared && isTag !== (before.charCodeAt(i) === LT)) return null;
+    const same = shared || (iEnd - i === jEnd - j && before.startsWith(after.slice(j, jEnd), i));
     if (!isTag) {
       text++;
-      shape.text();
+      shape = fnv(fnv(shape, HASH_SIGN), SPACE);
       if (!same) {
         const was = decodeEntities(before.slice(i, iEnd));
         const is = decodeEntities(after.slice(j, jEnd));
@@ -67,13 +75,13 @@ export function htmlEdits(fromHash: string, before: string, after: string): Part
         texts.push([text, was, is]);
       }
     } else if (after.charCodeAt(j + 1) === SLASH) {
-      if (before.charCodeAt(i + 1) !== SLASH) return null;
+      if (!shared && before.charCodeAt(i + 1) !== SLASH) return null;
     } else {
-      const name = tagName(after, j);
-      if (before.charCodeAt(i + 1) === SLASH || (!same && tagName(before, i) !== name)) return null;
       element++;
-      shape.element(name);
+      shape = feedTagName(after, j, shape);
       if (!same) {
+        const name = tagName(after, j);
+        if (before.charCodeAt(i + 1) === SLASH || tagName(before, i) !== name) return null;
         const was = attributesOf(before.slice(i, iEnd), name.length);
         const is = attributesOf(after.slice(j, jEnd), name.length);
         if (!was || !is) return null;
@@ -85,26 +93,42 @@ export function htmlEdits(fromHash: string, before: string, after: string): Part
     j = jEnd;
   }
   if (i < before.length || j < after.length) return null;
-  return { from: fromHash, shape: shape.value(), texts, attrs };
+  return { from: fromHash, shape: shape.toString(36), texts, attrs };
 }
 
-/** FNV-1a over "name " per element and "# " per text node; web/edits.js computes the same from the DOM. */
-class ShapeHash {
-  private hash = 0x811c9dc5;
-  element(name: string): void {
-    for (let k = 0; k < name.length; k++) this.feed(name.charCodeAt(k));
-    this.feed(32);
+function commonPrefix(a: string, b: string): number {
+  const n = Math.min(a.length, b.length);
+  let k = 0;
+  while (k < n && a.charCodeAt(k) === b.charCodeAt(k)) k++;
+  return k;
+}
+
+/** Length of the common ending, not reaching back into the common prefix. */
+function commonSuffix(a: string, b: string, prefix: number): number {
+  const n = Math.min(a.length, b.length) - prefix;
+  let k = 0;
+  while (k < n && a.charCodeAt(a.length - 1 - k) === b.charCodeAt(b.length - 1 - k)) k++;
+  return k;
+}
+
+// The shape is FNV-1a over "name " for each element and "# " for each text
+// node, names in lower case; web/edits.js computes the same from the DOM.
+const FNV_OFFSET = 0x811c9dc5;
+const HASH_SIGN = 35;
+const SPACE = 32;
+
+function fnv(hash: number, code: number): number {
+  return Math.imul(hash ^ code, 0x01000193) >>> 0;
+}
+
+/** Feeds the start tag's name at `at`, lower-cased, and a space. */
+function feedTagName(html: string, at: number, hash: number): number {
+  for (let k = at + 1; k < html.length; k++) {
+    const c = html.charCodeAt(k);
+    if (c === GT || c === SLASH || c === 32 || c === 9 || c === 10 || c === 12 || c === 13) break;
+    hash = fnv(hash, c >= 65 && c <= 90 ? c + 32 : c);
   }
-  text(): void {
-    this.feed(35);
-    this.feed(32);
-  }
-  value(): string {
-    return this.hash.toString(36);
-  }
-  private feed(code: number): void {
-    this.hash = Math.imul(this.hash ^ code, 0x01000193) >>> 0;
-  }
+  return fnv(hash, SPACE);
 }
 
 /**

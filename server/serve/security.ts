@@ -1,6 +1,6 @@
 // The guards between the network and the served folder. The server only reads:
 // nothing here (or anywhere in serve/) opens a sheet for writing.
-import { realpath } from 'node:fs/promises';
+import { realpathSync } from 'node:fs';
 import { isIP } from 'node:net';
 import { hostname } from 'node:os';
 import path from 'node:path';
@@ -145,12 +145,21 @@ export function isInside(folder: string, target: string): boolean {
  * folder's own realpath), following symlinks and refusing any that lead out.
  */
 export async function resolveSheetFile(realRoot: string, relative: string): Promise<string> {
+  return resolveSheetFileSync(realRoot, relative);
+}
+
+/**
+ * The same, without a round trip through the thread pool: the store resolves
+ * and reads the sheet on every save, and for a local text file two
+ * asynchronous calls cost several times the work itself.
+ */
+export function resolveSheetFileSync(realRoot: string, relative: string): string {
   const checked = checkSheetPath(relative);
   const joined = path.join(realRoot, ...checked.split('/'));
   if (!isInside(realRoot, joined)) throw new SheetPathError('path leaves the folder', 'outside-folder');
   let real: string;
   try {
-    real = await realpath(joined);
+    real = realpathSync.native(joined);
   } catch {
     throw new SheetPathError('no such sheet', 'missing');
   }

@@ -5,14 +5,14 @@
 // first. The store reads sheets; it never writes them.
 import { createHash } from 'node:crypto';
 import { EventEmitter } from 'node:events';
-import { readFile } from 'node:fs/promises';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { cautionHtml, headerHtml } from '../render/page.js';
 import type { RenderOptions, SheetResult } from '../sheet-types.js';
 import { DependencyMap } from './deps.js';
 import { htmlEdits, type PartEdits } from './html-edits.js';
 import type { IndexEntry, PartFrame, SheetCondition, SheetFrameMessage, SheetState } from './protocol.js';
-import { resolveSheetFile, SheetPathError } from './security.js';
+import { resolveSheetFileSync, SheetPathError } from './security.js';
 import { isSheetFile, type FileEvent } from './watch.js';
 
 /** What the store needs from the sandbox; tests may pass a stand-in. */
@@ -244,8 +244,9 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     let text: string;
     let file: string;
     try {
-      file = await resolveSheetFile(this.realRoot, sheet);
-      text = await readFile(file, 'utf8');
+      // Synchronous on purpose: sheets are small local text files (see resolveSheetFileSync).
+      file = resolveSheetFileSync(this.realRoot, sheet);
+      text = readFileSync(file, 'utf8');
     } catch (error) {
       if (error instanceof SheetPathError && error.code === 'outside-folder') {
         // A symlink out of the folder: not ours to show.
