@@ -35,6 +35,8 @@ export interface LiveFigures {
   toEvalStart: Summary | null;
   /** Evaluation in the sandbox, round trip included. */
   evalRoundTrip: Summary | null;
+  /** The engine's own time inside the sandbox (its elapsedMs). */
+  engine: Summary | null;
   /** Evaluation done → value in the DOM (hash, send, parse, patch). */
   evalToDom: Summary | null;
   /** marked + KaTeX alone on the same text and formulas. */
@@ -59,6 +61,7 @@ export async function benchLive(): Promise<LiveFigures[]> {
       toPaint: browser?.toPaint ?? null,
       toEvalStart: browser?.toEvalStart ?? null,
       evalRoundTrip: browser?.evalRoundTrip ?? null,
+      engine: browser?.engine ?? null,
       evalToDom: browser?.evalToDom ?? null,
       floor,
       fullEval: full,
@@ -110,11 +113,11 @@ function floorCost(sheet: BenchSheet, formulas: string[]): Summary {
 /** The sandbox, noting when each evaluation starts and ends (epoch ms, like the page's clock). */
 class TimedSandbox implements SheetRenderer {
   private readonly inner = new Sandbox({ timeoutMs: BENCH_TIMEOUT_MS });
-  last = { start: 0, end: 0 };
+  last = { start: 0, end: 0, engine: 0 };
   async render(text: string, opts: RenderOptions): Promise<SheetResult> {
     const start = performance.timeOrigin + performance.now();
     const result = await this.inner.render(text, opts);
-    this.last = { start, end: performance.timeOrigin + performance.now() };
+    this.last = { start, end: performance.timeOrigin + performance.now(), engine: result.elapsedMs };
     return result;
   }
   close(): Promise<void> {
@@ -138,6 +141,7 @@ async function saveToPage(sheet: BenchSheet) {
   const toPaint: number[] = [];
   const toEvalStart: number[] = [];
   const evalRoundTrip: number[] = [];
+  const engine: number[] = [];
   const evalToDom: number[] = [];
   try {
     const page = await context.newPage();
@@ -156,6 +160,7 @@ async function saveToPage(sheet: BenchSheet) {
       toPaint.push(painted - t0);
       toEvalStart.push(renderer.last.start - t0);
       evalRoundTrip.push(renderer.last.end - renderer.last.start);
+      engine.push(renderer.last.engine);
       evalToDom.push(dom - renderer.last.end);
       await new Promise((r) => setTimeout(r, 150)); // let the watcher's second look pass
     }
@@ -171,6 +176,7 @@ async function saveToPage(sheet: BenchSheet) {
     toPaint: summarise(toPaint),
     toEvalStart: summarise(toEvalStart),
     evalRoundTrip: summarise(evalRoundTrip),
+    engine: summarise(engine),
     evalToDom: summarise(evalToDom),
   };
 }
@@ -217,6 +223,7 @@ export function printLive(figures: LiveFigures[]): void {
     row('laid out and painted', f.toPaint);
     row('  of which: write → evaluation starts', f.toEvalStart);
     row('  of which: evaluation (sandbox round trip)', f.evalRoundTrip);
+    row('    of which: the engine in the sandbox', f.engine);
     row('  of which: evaluated → in the DOM', f.evalToDom);
     row('floor: marked + KaTeX alone, same output', f.floor);
     row('evaluation, full (engine elapsedMs)', f.fullEval);

@@ -11,6 +11,20 @@
  */
 
 /**
+ * @typedef {{shape: string, elements: Element[], texts: Text[]}} PartNodes
+ * A part's nodes in document order, kept between updates: edits change text
+ * and attributes only, so the list stays true until the part is replaced
+ * (forgetNodes), and the next update need not walk the part again.
+ * @type {WeakMap<HTMLElement, PartNodes>}
+ */
+const known = new WeakMap();
+
+/** Call whenever a part's nodes are added, removed or replaced. */
+export function forgetNodes(/** @type {HTMLElement} */ part) {
+  known.delete(part);
+}
+
+/**
  * Checks the edits against the part and returns a function that applies
  * them, or null when they do not fit (then the page asks for the full frame).
  * @param {HTMLElement} part
@@ -19,6 +33,31 @@
  */
 export function prepareEdits(part, edits) {
   if (part.dataset.hash !== edits.from) return null;
+  let nodes = known.get(part);
+  if (!nodes) known.set(part, (nodes = walk(part)));
+  const { elements, texts } = nodes;
+  if (nodes.shape !== edits.shape) return null;
+  for (const [index, was] of edits.texts) if (texts[index]?.data !== was) return null;
+  for (const [index, tag] of edits.attrs) if (elements[index]?.localName.toLowerCase() !== tag) return null;
+
+  return () => {
+    for (const [index, , text] of edits.texts) texts[index].data = text;
+    for (const [index, tag, name, value] of edits.attrs) {
+      // The reader opened or closed this themselves: leave it so.
+      if (tag === 'details' && name === 'open') continue;
+      if (value === null) elements[index].removeAttribute(name);
+      else elements[index].setAttribute(name, value);
+    }
+  };
+}
+
+/**
+ * The part's elements and text nodes in document order, and the fingerprint
+ * of that sequence (FNV-1a, as server/serve/html-edits.ts computes it).
+ * @param {HTMLElement} part
+ * @returns {PartNodes}
+ */
+function walk(part) {
   /** @type {Element[]} */
   const elements = [];
   /** @type {Text[]} */
@@ -41,17 +80,5 @@ export function prepareEdits(part, edits) {
       feed(element.localName.toLowerCase() + ' ');
     }
   }
-  if (hash.toString(36) !== edits.shape) return null;
-  for (const [index, was] of edits.texts) if (texts[index]?.data !== was) return null;
-  for (const [index, tag] of edits.attrs) if (elements[index]?.localName.toLowerCase() !== tag) return null;
-
-  return () => {
-    for (const [index, , text] of edits.texts) texts[index].data = text;
-    for (const [index, tag, name, value] of edits.attrs) {
-      // The reader opened or closed this themselves: leave it so.
-      if (tag === 'details' && name === 'open') continue;
-      if (value === null) elements[index].removeAttribute(name);
-      else elements[index].setAttribute(name, value);
-    }
-  };
+  return { shape: hash.toString(36), elements, texts };
 }

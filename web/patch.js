@@ -3,7 +3,7 @@
 // parts are added, moved and removed to follow the server's order. The
 // reader's place is kept: the first part in view stays where it was on
 // screen, and opened <details> stay open.
-import { prepareEdits } from './edits.js';
+import { forgetNodes, prepareEdits } from './edits.js';
 import { morphContent } from './morph.js';
 
 /**
@@ -70,6 +70,7 @@ export function replaceContent(element, html) {
   element.querySelectorAll('details').forEach((d, i) => {
     if (d.open) open.add(detailsId(d, i));
   });
+  forgetNodes(element);
   morphContent(element, html);
   if (open.size === 0) return;
   element.querySelectorAll('details').forEach((d, i) => {
