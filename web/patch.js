@@ -11,9 +11,25 @@ import { morphContent } from './morph.js';
  * @typedef {{stale: boolean, failure: string | null, gone: boolean, movedTo: string | null,
  *            evaluatedAt: string | null, elapsedMs: number | null}} SheetCondition
  * @typedef {{type: 'sheet', sheet: string, version: number, base: number | null, title: string,
- *            parts: PartFrame[], headerHtml: string | null, summaryHtml: string | null,
+ *            parts: PartFrame[], order: string[] | null, headerHtml: string | null, summaryHtml: string | null,
  *            condition: SheetCondition}} SheetFrame
  */
+
+/** @type {WeakMap<HTMLElement, Map<string, HTMLElement>>} the parts of each <main> by key */
+const partsOf = new WeakMap();
+
+/** @param {HTMLElement} main */
+function partsByKey(main) {
+  let parts = partsOf.get(main);
+  if (!parts) {
+    parts = new Map();
+    for (const child of main.children) {
+      if (child instanceof HTMLElement && child.dataset.key) parts.set(child.dataset.key, child);
+    }
+    partsOf.set(main, parts);
+  }
+  return parts;
+}
 
 /**
  * @param {HTMLElement} main
@@ -21,11 +37,7 @@ import { morphContent } from './morph.js';
  * @returns {boolean} false when the frame cannot be applied and a complete one is needed
  */
 export function patchParts(main, frame) {
-  /** @type {Map<string, HTMLElement>} */
-  const existing = new Map();
-  for (const child of main.children) {
-    if (child instanceof HTMLElement && child.dataset.key) existing.set(child.dataset.key, child);
-  }
+  const existing = partsByKey(main);
   // Everything is checked before anything changes, so a frame that does not
   // fit leaves the page as it was.
   /** @type {Map<string, () => void>} */
@@ -37,13 +49,17 @@ export function patchParts(main, frame) {
     if (!apply) return false;
     edits.set(part.key, apply);
   }
+  // A patch lists only the parts that changed; it names every key only when the order changed.
+  const changed = new Map(frame.parts.map((p) => [p.key, p]));
+  if (frame.order) {
+    for (const key of frame.order) if (!existing.has(key) && changed.get(key)?.html === undefined) return false;
+  } else if (frame.parts.some((p) => !existing.get(p.key)?.isConnected)) {
+    return false;
+  }
   const anchor = findAnchor(main);
 
-  /** @type {Element | null} */
-  let previous = null;
   for (const part of frame.parts) {
     let element = existing.get(part.key);
-    existing.delete(part.key);
     if (!element) {
       element = document.createElement('div');
       element.className = 'ws-part live-part';
@@ -54,14 +70,33 @@ export function patchParts(main, frame) {
       else edits.get(part.key)?.();
       element.dataset.hash = part.hash;
     }
+    existing.set(part.key, element);
+  }
+  if (frame.order) reorder(main, existing, frame.order);
+
+  if (anchor) restoreAnchor(main, anchor);
+  return true;
+}
+
+/**
+ * Puts the parts in the server's order and drops those it no longer lists.
+ * @param {HTMLElement} main @param {Map<string, HTMLElement>} parts @param {string[]} order
+ */
+function reorder(main, parts, order) {
+  const wanted = new Set(order);
+  for (const [key, element] of parts) {
+    if (wanted.has(key)) continue;
+    element.remove();
+    parts.delete(key);
+  }
+  /** @type {Element | null} */
+  let previous = null;
+  for (const key of order) {
+    const element = /** @type {HTMLElement} */ (parts.get(key));
     const expected = previous ? previous.nextElementSibling : main.firstElementChild;
     if (expected !== element) main.insertBefore(element, expected);
     previous = element;
   }
-  for (const leftover of existing.values()) leftover.remove();
-
-  if (anchor) restoreAnchor(main, anchor);
-  return true;
 }
 
 /** Brings an element's content up to date, keeping open the <details> that were open. */

@@ -37,8 +37,13 @@ export interface SheetFrameMessage {
   /** Version this frame patches; null when the frame is complete. */
   base: number | null;
   title: string;
-  /** Every part in order; html only where it changed since `base`. */
+  /**
+   * A complete frame: every part, with its html. A patch: only the parts that
+   * changed since `base` (html, or edits to the receiver's copy).
+   */
   parts: PartFrame[];
+  /** Keys of all parts in page order: always in a complete frame; in a patch only when keys were added, removed or moved. */
+  order: string[] | null;
   /** The sheet's header (title, front matter, caution); null when unchanged since `base`. */
   headerHtml: string | null;
   /** null when unchanged since `base`. */

@@ -133,6 +133,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
       base: null,
       title: record.title,
       parts: record.parts.map((p) => ({ key: p.key, hash: p.hash, html: p.html })),
+      order: record.parts.map((p) => p.key),
       headerHtml: record.headerHtml,
       summaryHtml: record.summaryHtml,
       condition: this.condition(record),
@@ -275,6 +276,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
   }
 
   private accept(record: SheetRecord, result: SheetResult): void {
+    const previousKeys = record.parts;
     const before = new Map(record.parts.map((p) => [p.key, p]));
     // Unchanged parts arrive as the very same strings: keep their hash instead of rehashing megabytes.
     const parts = result.parts.map((p) => {
@@ -293,20 +295,21 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     record.failure = null;
     record.state = 'ready';
     record.evaluatedAt = new Date().toISOString();
-    const frames: PartFrame[] = parts.map((p) => {
+    const frames: PartFrame[] = [];
+    for (const p of parts) {
       const old = before.get(p.key);
-      if (old?.hash === p.hash) return { key: p.key, hash: p.hash };
+      if (old?.hash === p.hash) continue;
       const edits = old ? htmlEdits(old.hash, old.html, p.html) : null;
-      return edits && editsAreSmaller(edits, p.html) ? { key: p.key, hash: p.hash, edits } : { key: p.key, hash: p.hash, html: p.html };
-    });
-    this.publish(record, base, frames, changed.header ? header : null, changed.summary ? record.summaryHtml : null);
+      frames.push(edits && editsAreSmaller(edits, p.html) ? { key: p.key, hash: p.hash, edits } : { key: p.key, hash: p.hash, html: p.html });
+    }
+    const order = sameKeys(previousKeys, parts) ? null : parts.map((p) => p.key);
+    this.publish(record, base, frames, order, changed.header ? header : null, changed.summary ? record.summaryHtml : null);
   }
 
   private fail(record: SheetRecord, message: string): void {
     record.failure = message;
     record.state = 'failed';
-    const frames = record.parts.map((p) => ({ key: p.key, hash: p.hash }));
-    this.publish(record, record.version, frames, null, null);
+    this.publish(record, record.version, [], null, null, null);
   }
 
   private markGone(sheet: string): void {
@@ -317,7 +320,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     this.dirty.delete(sheet);
     this.deps.forget(sheet);
     this.detectMoveFrom(record);
-    this.publish(record, record.version, record.parts.map((p) => ({ key: p.key, hash: p.hash })), null, null);
+    this.publish(record, record.version, [], null, null, null);
     record.waiters.splice(0).forEach((w) => w());
   }
 
@@ -334,7 +337,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     for (const old of this.records.values()) {
       if (old.gone && old.movedTo === null && old.lastText === record.lastText && Date.now() - old.goneAt < MOVE_WINDOW_MS) {
         old.movedTo = record.path;
-        this.publish(old, old.version, old.parts.map((p) => ({ key: p.key, hash: p.hash })), null, null);
+        this.publish(old, old.version, [], null, null, null);
         return;
       }
     }
@@ -350,7 +353,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     }
   }
 
-  private publish(record: SheetRecord, base: number, parts: PartFrame[], headerHtml: string | null, summaryHtml: string | null): void {
+  private publish(record: SheetRecord, base: number, parts: PartFrame[], order: string[] | null, headerHtml: string | null, summaryHtml: string | null): void {
     record.version = base + 1;
     record.waiters.splice(0).forEach((w) => w());
     this.emit('sheet', {
@@ -360,12 +363,17 @@ export class SheetStore extends EventEmitter<StoreEvents> {
       base,
       title: record.title,
       parts,
+      order,
       headerHtml,
       summaryHtml,
       condition: this.condition(record),
     });
     this.emit('index');
   }
+}
+
+function sameKeys(a: readonly { key: string }[], b: readonly { key: string }[]): boolean {
+  return a.length === b.length && a.every((p, i) => p.key === b[i]!.key);
 }
 
 /** Edits win unless nearly everything changed (a rough size count, no serialising). */

@@ -148,10 +148,9 @@ describe('WebSocket', () => {
     await client.next((m) => m.type === 'busy', 'the busy notice');
     const patch = (await client.next((m) => m.type === 'sheet', 'the patch')) as SheetFrameMessage;
     expect(patch.base).toBe(first.version);
-    expect(patch.parts).toEqual([
-      { key: 'p0', hash: first.parts[0]!.hash },
-      { key: 'p1', hash: expect.any(String), html: '<p>three</p>' },
-    ]);
+    expect(first.order).toEqual(['p0', 'p1']);
+    expect(patch.parts).toEqual([{ key: 'p1', hash: expect.any(String), html: '<p>three</p>' }]);
+    expect(patch.order).toBeNull();
   });
 
   it('re-evaluates a sheet when a data file it reads changes', async () => {

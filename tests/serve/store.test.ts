@@ -42,13 +42,47 @@ describe('SheetStore', () => {
     const delta = await waitFor('a second frame', () => frames[1]);
     expect(delta.base).toBe(1);
     expect(delta.version).toBe(2);
-    expect(delta.parts.map((p) => [p.key, p.html !== undefined])).toEqual([
-      ['p0', false],
-      ['p1', true],
-      ['p2', false],
-    ]);
-    expect(delta.parts[1]!.html).toBe('<p>TWO</p>');
-    expect(store.frame('a.md')!.parts.every((p) => p.html !== undefined)).toBe(true);
+    expect(delta.parts).toEqual([{ key: 'p1', hash: expect.any(String), html: '<p>TWO</p>' }]);
+    expect(delta.order).toBeNull(); // the same parts in the same order
+    const complete = store.frame('a.md')!;
+    expect(complete.parts.every((p) => p.html !== undefined)).toBe(true);
+    expect(complete.order).toEqual(['p0', 'p1', 'p2']);
+  });
+
+  it('names the order of the parts when parts come or go', async () => {
+    const { store, frames, write } = await storeWith({ 'a.md': 'one\n\ntwo' });
+    await write('a.md', 'one\n\ntwo\n\nthree');
+    store.handle({ kind: 'changed', file: 'a.md' });
+    const delta = await waitFor('a second frame', () => frames[1]);
+    expect(delta.order).toEqual(['p0', 'p1', 'p2']);
+    expect(delta.parts).toEqual([{ key: 'p2', hash: expect.any(String), html: '<p>three</p>' }]);
+  });
+
+  it('sends small edits instead of html when only text and attributes changed', async () => {
+    // A statement-like part: the number is a small text node among a lot of fixed markup.
+    const renderer = new ParagraphRenderer();
+    const plain = renderer.render.bind(renderer);
+    renderer.render = async (text, opts) => {
+      const result = await plain(text, opts);
+      const speed = /speed (\S+)/.exec(text)![1]!;
+      const fixed = '<span class="katex">'.repeat(20) + 'U' + '</span>'.repeat(20);
+      result.parts = [{ key: 'p0', html: `<div data-si="${speed}">${fixed}<b>${speed}</b></div>` }];
+      return result;
+    };
+    const folder = await makeFolder({ 'a.md': 'speed 12' });
+    const store = new SheetStore(folder.dir, renderer);
+    cleanup.push(folder.remove, () => store.close());
+    const frames: SheetFrameMessage[] = [];
+    store.on('sheet', (f) => frames.push(f));
+    store.addInitial(['a.md']);
+    await store.whenEvaluated('a.md');
+    await writeFile(path.join(folder.dir, 'a.md'), 'speed 13.5');
+    store.handle({ kind: 'changed', file: 'a.md' });
+    const delta = await waitFor('a second frame', () => frames[1]);
+    const [part] = delta.parts;
+    expect(part!.html).toBeUndefined();
+    // Element 0 is the div; text node 0 is the "U", text node 1 the number.
+    expect(part!.edits).toMatchObject({ from: frames[0]!.parts[0]!.hash, texts: [[1, '12', '13.5']], attrs: [[0, 'div', 'data-si', '13.5']] });
   });
 
   it('re-evaluates only the sheets that read a changed data file', async () => {
@@ -71,7 +105,8 @@ describe('SheetStore', () => {
     store.handle({ kind: 'changed', file: 'a.md' });
     const failed = await waitFor('the failure frame', () => frames[1]);
     expect(failed.condition).toMatchObject({ stale: true, failure: 'Evaluation failed: evaluation timed out after 2000 ms' });
-    expect(failed.parts).toEqual([{ key: 'p0', hash: expect.any(String) }]);
+    expect(failed.parts).toEqual([]); // nothing new to show: the page keeps what it has
+    expect(failed.order).toBeNull();
     expect(store.index()[0]).toMatchObject({ state: 'failed', failure: expect.stringContaining('timed out') });
 
     await write('a.md', 'mended');
