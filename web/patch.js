@@ -1,8 +1,7 @@
 // Applies a sheet frame from the server to the page. Only parts whose hash
 // changed are touched, and inside them only the nodes that differ (morph.js);
-// parts are added, moved and removed to follow the server's order. The
-// reader's place is kept: the first part in view stays where it was on
-// screen, and opened <details> stay open.
+// parts are added, moved and removed to follow the server's order. Opened
+// <details> stay open, and holdPlace keeps the reader's place on screen.
 import { forgetNodes, prepareEdits } from './edits.js';
 import { morphContent } from './morph.js';
 
@@ -56,8 +55,6 @@ export function patchParts(main, frame) {
   } else if (frame.parts.some((p) => !existing.get(p.key)?.isConnected)) {
     return false;
   }
-  const anchor = findAnchor(main);
-
   for (const part of frame.parts) {
     let element = existing.get(part.key);
     if (!element) {
@@ -74,7 +71,6 @@ export function patchParts(main, frame) {
   }
   if (frame.order) reorder(main, existing, frame.order);
 
-  if (anchor) restoreAnchor(main, anchor);
   return true;
 }
 
@@ -119,23 +115,39 @@ function detailsId(details, index) {
   return details.id || (summary ? `s:${summary.textContent?.trim()}` : `i:${index}`);
 }
 
-/** The first part at least partly in view and its distance from the top. */
-function findAnchor(main) {
-  if (window.scrollY === 0) return null;
-  for (const child of main.children) {
-    if (!(child instanceof HTMLElement)) continue;
-    const rect = child.getBoundingClientRect();
-    if (rect.bottom > 0) return { key: child.dataset.key, top: rect.top };
+/**
+ * Notes where the reader is: the first element in view, from the part down to
+ * the statement, and how far it is from the top of the window. The returned
+ * function scrolls so that the deepest of them still on the page is back at
+ * that place, whatever changed above it (parts, the summary, the header).
+ * @param {HTMLElement} main
+ * @returns {() => void}
+ */
+export function holdPlace(main) {
+  if (window.scrollY === 0) return () => {};
+  /** @type {{element: Element, top: number}[]} */
+  const chain = [];
+  /** @type {Element | null} */
+  let parent = main;
+  for (let depth = 0; depth < 4 && parent; depth++) {
+    parent = firstInView(parent);
+    if (parent) chain.push({ element: parent, top: parent.getBoundingClientRect().top });
   }
-  return null;
-}
-
-function restoreAnchor(main, anchor) {
-  for (const child of main.children) {
-    if (child instanceof HTMLElement && child.dataset.key === anchor.key) {
-      const shift = child.getBoundingClientRect().top - anchor.top;
+  return () => {
+    for (let i = chain.length - 1; i >= 0; i--) {
+      const { element, top } = chain[i];
+      if (!element.isConnected) continue;
+      const shift = element.getBoundingClientRect().top - top;
       if (Math.abs(shift) >= 1) window.scrollBy(0, shift);
       return;
     }
+  };
+}
+
+/** @param {Element} parent */
+function firstInView(parent) {
+  for (const child of parent.children) {
+    if (child.getBoundingClientRect().bottom > 0) return child;
   }
+  return null;
 }

@@ -1,5 +1,5 @@
 // The sheet page: follows one sheet, applies frames, shows its condition.
-import { patchParts, replaceContent } from './patch.js';
+import { holdPlace, patchParts, replaceContent } from './patch.js';
 import { localTime } from './status.js';
 
 /**
@@ -24,6 +24,7 @@ export function createSheetView(status, send) {
   function applyFrame(frame) {
     if (frame.sheet !== body.dataset.sheet) return;
     if (frame.base !== null && String(frame.base) !== body.dataset.version) return follow();
+    const restorePlace = holdPlace(main);
     if (!patchParts(main, frame)) return follow();
     if (frame.base !== null) renameNote = null;
     if (frame.headerHtml !== null && header) replaceContent(header, frame.headerHtml);
@@ -31,6 +32,7 @@ export function createSheetView(status, send) {
     body.dataset.version = String(frame.version);
     document.title = `${frame.title} · Wakesheet`;
     showCondition(frame.condition);
+    restorePlace(); // after everything above the reader's place has changed, notice included
     const { movedTo } = frame.condition;
     if (movedTo) {
       // Same sheet under its new name: follow it there without a reload.

@@ -97,6 +97,25 @@ describeInBrowser('live sheet page', () => {
     expect(Math.abs((await page.evaluate(() => window.scrollY)) - before)).toBeLessThan(3);
   });
 
+  it('keeps the paragraph being read in place while the summary above it grows and shrinks', async () => {
+    const filler = Array.from({ length: 40 }, (_, i) => `Paragraph ${i} about the mesh, the far field and the wake.`).join('\n\n');
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s', filler) });
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await page.setViewportSize({ width: 900, height: 500 });
+    await waitForStatus(page, 'live');
+    const topOf = () => page.evaluate(() => [...document.querySelectorAll('main p')].find((p) => p.textContent === 'Paragraph 20 about the mesh, the far field and the wake.')!.getBoundingClientRect().top);
+    await page.evaluate(() => [...document.querySelectorAll('main p')].find((p) => p.textContent!.startsWith('Paragraph 20 '))!.scrollIntoView());
+    const before = await topOf();
+
+    // A broken input: the summary above gains an error list, the block an error box.
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('12 m/s + 1 Pa', filler));
+    await page.waitForSelector('main .ws-error');
+    expect(Math.abs((await topOf()) - before)).toBeLessThan(3);
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('12 m/s', filler));
+    await page.waitForSelector('main .ws-error', { state: 'detached' });
+    expect(Math.abs((await topOf()) - before)).toBeLessThan(3);
+  });
+
   it('keeps the last good content, marked stale, while evaluation fails, and recovers', async () => {
     const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') }, { renderer: new SandboxWithFaults() });
     const page = await openPage(server.url + 'sheet/wing.md');
