@@ -46,6 +46,8 @@ interface SheetRecord {
   evaluatedAt: string | null;
   /** Text of the last evaluation, to recognise the same sheet after a rename. */
   lastText: string | null;
+  /** The last read found the sheet empty, and a second look is due. */
+  emptyOnce: boolean;
   waiters: (() => void)[];
 }
 
@@ -58,6 +60,8 @@ export interface StoreEvents {
 
 /** A rename shows up as a delete and an add of the same text within this time. */
 const MOVE_WINDOW_MS = 2000;
+/** How long an emptied sheet waits for the rest of its save before it is shown empty. */
+const EMPTY_RECHECK_MS = 25;
 
 export function hashHtml(html: string): string {
   return createHash('sha1').update(html).digest('base64url').slice(0, 12);
@@ -187,6 +191,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
         movedTo: null,
         evaluatedAt: null,
         lastText: null,
+        emptyOnce: false,
         waiters: [],
       };
       this.records.set(sheet, record);
@@ -239,9 +244,6 @@ export class SheetStore extends EventEmitter<StoreEvents> {
   private async evaluate(sheet: string): Promise<void> {
     const record = this.records.get(sheet);
     if (!record || record.gone) return;
-    record.state = 'evaluating';
-    this.emit('busy', sheet);
-    this.emit('index');
     let text: string;
     let file: string;
     try {
@@ -260,6 +262,17 @@ export class SheetStore extends EventEmitter<StoreEvents> {
       this.fail(record, `Could not read the sheet: ${describe(error)}`);
       return;
     }
+    if (text.trim() === '' && record.lastText?.trim() && !record.emptyOnce) {
+      // Caught mid-save (truncated, not yet written)? Look again shortly rather
+      // than blank the page; a sheet still empty then really is empty.
+      record.emptyOnce = true;
+      setTimeout(() => this.schedule(sheet), EMPTY_RECHECK_MS).unref();
+      return;
+    }
+    record.emptyOnce = false;
+    record.state = 'evaluating';
+    this.emit('busy', sheet);
+    this.emit('index');
     let result: SheetResult;
     try {
       result = await this.renderer.render(text, { path: file, root: this.realRoot });

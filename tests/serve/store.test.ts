@@ -1,3 +1,4 @@
+import { writeFileSync } from 'node:fs';
 import { rm, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
@@ -83,6 +84,23 @@ describe('SheetStore', () => {
     expect(part!.html).toBeUndefined();
     // Element 0 is the div; text node 0 is the "U", text node 1 the number.
     expect(part!.edits).toMatchObject({ from: frames[0]!.parts[0]!.hash, texts: [[1, '12', '13.5']], attrs: [[0, 'div', 'data-si', '13.5']] });
+  });
+
+  it('does not blank the page for a sheet caught empty in the middle of a save', async () => {
+    const { dir, store, frames, write } = await storeWith({ 'a.md': 'one\n\ntwo' });
+    await write('a.md', ''); // truncated; the new text lands a moment later
+    store.handle({ kind: 'changed', file: 'a.md' }); // reads the file before it returns
+    writeFileSync(path.join(dir, 'a.md'), 'one\n\nthree');
+    const next = await waitFor('the next frame', () => frames[1]);
+    expect(next.parts).toEqual([{ key: 'p1', hash: expect.any(String), html: '<p>three</p>' }]);
+  });
+
+  it('shows a sheet that stays empty as empty', async () => {
+    const { store, frames, write } = await storeWith({ 'a.md': 'one' });
+    await write('a.md', '');
+    store.handle({ kind: 'changed', file: 'a.md' });
+    const next = await waitFor('the empty frame', () => frames[1]);
+    expect(next.order).toEqual([]);
   });
 
   it('re-evaluates only the sheets that read a changed data file', async () => {
