@@ -147,6 +147,10 @@ async function saveToPage(sheet: BenchSheet) {
     const page = await context.newPage();
     await page.goto(server.url + 'sheet/sheet.md');
     await page.waitForSelector(`[data-name="${sheet.input}"]`, { timeout: 60_000 });
+    // Let the page finish opening (its complete frame applied, first frames drawn):
+    // the saves measure updates, not the load of a 2,000-statement page.
+    await page.waitForSelector('.live-status[data-state="live"]', { timeout: 60_000 });
+    await page.evaluate('new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(() => setTimeout(r, 200))))');
     await page.evaluate(PROBE_SOURCE);
     for (let i = 1; i <= SAVES; i++) {
       const value = sheet.base + i / 100;
