@@ -13,7 +13,7 @@ import { Budget, DEFAULT_LIMITS, type Limits } from './evaluate/limits.js';
 import { splitFrontMatter } from './read/front-matter.js';
 import { normaliseNewlines, resegment, segment, type Segment, type Segmented } from './read/segments.js';
 import { dataReader, projectPath } from './read/data-files.js';
-import { statementHtml, errorHtml, isLiteral } from './render/statement.js';
+import { statementHtml, errorHtml, isLiteral, lastGoodHtml, type StatementView } from './render/statement.js';
 import { inlineValueSpans, proseHtml } from './render/prose.js';
 import { summaryHtml, type SummaryItem } from './render/page.js';
 import { dataAttrs, displayText, valueHtml, valueJson } from './render/values.js';
@@ -40,8 +40,13 @@ export type SheetCore = Omit<SheetResult, 'html'> & { freshStatements?: number }
 
 const DEFINE_HEAD = /^\s*([A-Za-z_µμ\u0370-\u03ff][A-Za-z0-9_\u0370-\u03ff]*)\s*=(?!=)/;
 
+/** What rendering reads besides each statement's own result. */
+type SheetView = StatementView & { lastGood: ReadonlyMap<string, Value> };
+
 export class SheetSession {
   private readonly cache = new EvalCache();
+  /** Each name's last good value, shown (marked stale) while its statement fails. */
+  private lastGood: Map<string, Value> = new Map();
   private readonly parts = new Map<string, PartMemo>();
   /** Parsed lines by place and text: an unchanged line is not parsed again. */
   private parsedLines = new Map<string, Statement | Diagnostic | null>();
@@ -91,7 +96,8 @@ export class SheetSession {
     };
     const evaluation = evaluateSheet(statements, { registry: this.registry, limits: this.limits, readData: readerFor, cache: this.cache, failedNames });
     const byLine = new Map(evaluation.results.map((r) => [r.stmt.line, r]));
-    const view = { sig, values: evaluation.values };
+    this.lastGood = lastGoodValues(evaluation.results, failedNames.keys(), this.lastGood);
+    const view: SheetView = { sig, values: evaluation.values, lastGood: this.lastGood };
 
     const out: SheetPart[] = [];
     const checks: CheckJson[] = [];
@@ -114,8 +120,8 @@ export class SheetSession {
       // (cheap to compare downstream); otherwise each statement is memoised on its own.
       const inputs: unknown[] = [];
       for (const item of block.items) {
-        if ('type' in item) statementInputs(byLine.get(item.line)!, evaluation.values, inputs);
-        else inputs.push(item.message, item.line, item.column);
+        if ('type' in item) statementInputs(byLine.get(item.line)!, view, inputs);
+        else inputs.push(item.message, item.line, item.column, view.lastGood.get((item as Diagnostic & { name?: string }).name ?? ''));
       }
       const key = `b${i}`;
       const memo = this.parts.get(key);
@@ -125,7 +131,7 @@ export class SheetSession {
         const pieces = block.items.map((item) =>
           'type' in item
             ? this.statement(byLine.get(item.line)!, view)
-            : `<div class="ws-stmt ws-broken" id="L${item.line}" data-line="${item.line}">${errorHtml(item.message, item.line, item.column, (item as Diagnostic & { source?: string }).source)}</div>`,
+            : `<div class="ws-stmt ws-broken" id="L${item.line}" data-line="${item.line}">${errorHtml(item.message, item.line, item.column, (item as Diagnostic & { source?: string }).source)}${lastGoodHtml((item as Diagnostic & { name?: string }).name, view)}</div>`,
         );
         html = `<div class="ws-block" data-fence-line="${block.fenceLine}">${pieces.join('')}</div>`;
         this.parts.set(key, { html, inputs });
@@ -179,9 +185,9 @@ export class SheetSession {
   }
 
   /** One statement's HTML, reused while its result and inputs are the same objects. */
-  private statement(r: StatementResult, view: { sig: number; values: ReadonlyMap<string, Value> }): string {
+  private statement(r: StatementResult, view: SheetView): string {
     const key = `${r.stmt.line}\u0000${r.stmt.source}`;
-    const inputs = statementInputs(r, view.values, []);
+    const inputs = statementInputs(r, view, []);
     const memo = this.statements.get(key);
     if (memo && sameList(memo.inputs, inputs)) return memo.html;
     const html = `<a id="L${r.stmt.line}" class="ws-anchor"></a>${statementHtml(r, view)}`;
@@ -224,7 +230,7 @@ export class SheetSession {
     return { blocks };
   }
 
-  private prose(seg: Extract<Segment, { kind: 'prose' }>, links: Parameters<typeof proseHtml>[1], view: { sig: number; values: ReadonlyMap<string, Value> }, key: string, errors: ErrorJson[], problems: SummaryItem[]): string {
+  private prose(seg: Extract<Segment, { kind: 'prose' }>, links: Parameters<typeof proseHtml>[1], view: SheetView, key: string, errors: ErrorJson[], problems: SummaryItem[]): string {
     const memo = this.parts.get(key);
     let base: string;
     if (memo && memo.inputs[0] === seg.raw) base = memo.inputs[1] as string;
@@ -242,27 +248,36 @@ export class SheetSession {
     return html;
   }
 
-  private inlineValue(exprText: string, line: number, view: { sig: number; values: ReadonlyMap<string, Value> }, errors: ErrorJson[], problems: SummaryItem[]): string {
+  private inlineValue(exprText: string, line: number, view: SheetView, errors: ErrorJson[], problems: SummaryItem[]): string {
     const key = `${line}\u0000${exprText.trim()}`;
     try {
       const { expr: e, names } = this.inlineExpr(key, exprText.trim(), line);
       const inputs: unknown[] = [view.sig];
-      for (const n of names) inputs.push(view.values.get(n) ?? CONSTANTS.get(n));
+      for (const n of names) {
+        const current = view.values.get(n) ?? CONSTANTS.get(n);
+        inputs.push(current ?? STALE, current ?? view.lastGood.get(n));
+      }
       const memo = this.inlineShown.get(key);
       if (memo && sameList(memo.inputs, inputs)) return memo.html;
+      let stale = false;
       const v = evaluate(e, {
         registry: this.registry,
         budget: new Budget({ ...this.limits, maxSteps: 100_000 }),
         context: { readData: () => { throw new SheetError('data-file', 'inline values cannot read data files'); }, warn: () => {} },
         lookup: (name, span) => {
           const x = view.values.get(name) ?? CONSTANTS.get(name);
-          if (!x) throw new SheetError('unknown-name', `\`${name}\` has no value (line ${span.line})`, span);
-          return x;
+          if (x) return x;
+          // While the statement behind a name fails, prose keeps its last good value, marked.
+          const old = view.lastGood.get(name);
+          if (!old) throw new SheetError('unknown-name', `\`${name}\` has no value (line ${span.line})`, span);
+          stale = true;
+          return old;
         },
         defaultOf: () => { throw new SheetError('syntax', 'inline values cannot call functions with defaults'); },
       });
-      const html =
-        v.kind === 'record' || v.kind === 'figure' || v.kind === 'table'
+      const html = stale
+        ? staleInlineHtml(v, view.sig)
+        : v.kind === 'record' || v.kind === 'figure' || v.kind === 'table'
           ? valueHtml(exprText.trim(), v, view.sig)
           : `<span class="ws-inline"${dataAttrs(exprText.trim(), v)}>${esc(displayText(v, view.sig))}</span>`;
       if (this.inlineShown.size > 2000) this.inlineShown.clear();
@@ -285,10 +300,38 @@ function needsCaution(v: Value): boolean {
 }
 
 /** What a statement's HTML depends on, appended to `out`. */
-function statementInputs(r: StatementResult, values: ReadonlyMap<string, Value>, out: unknown[]): unknown[] {
+function statementInputs(r: StatementResult, view: SheetView, out: unknown[]): unknown[] {
   out.push(r.stmt.line, r.stmt.source, r.value, r.error?.message, r.error?.column, r.blockedBy, r.skipped, r.warnings.length ? r.warnings.join('\n') : '');
-  for (const n of r.uses) out.push(values.get(n));
+  for (const n of r.uses) out.push(view.values.get(n));
+  if ((r.error || r.blockedBy) && r.stmt.type === 'define') out.push(view.lastGood.get(r.stmt.name));
   return out;
+}
+
+/** Marks the memo inputs of an inline value that fell back to a last good value. */
+const STALE = Symbol('stale');
+
+/**
+ * Each defined name's last good value: this run's where it has one, else the
+ * one kept from earlier runs while its statement fails, waits on a failure or
+ * does not parse. Names no longer defined are dropped.
+ */
+function lastGoodValues(results: readonly StatementResult[], unparsed: Iterable<string>, before: ReadonlyMap<string, Value>): Map<string, Value> {
+  const kept = new Map<string, Value>();
+  for (const name of unparsed) {
+    const value = before.get(name);
+    if (value) kept.set(name, value);
+  }
+  for (const r of results) {
+    if (r.stmt.type !== 'define') continue;
+    const fresh = r.value && !r.error && !r.blockedBy && !r.skipped ? r.value : undefined;
+    const value = fresh ?? before.get(r.stmt.name);
+    if (value) kept.set(r.stmt.name, value);
+  }
+  return kept;
+}
+
+function staleInlineHtml(v: Value, sig: number): string {
+  return `<span class="ws-inline ws-stale-value" title="the last good value: not current while a statement it depends on fails">${esc(displayText(v, sig))} <span class="ws-stale-tag">stale</span></span>`;
 }
 
 function sameList(a: unknown[], b: unknown[]): boolean {

@@ -7,12 +7,14 @@ import { attrs, esc } from './html.js';
 import { chainHtml, mathHtml } from './katex.js';
 import { exprLatex, valueLatex } from './latex.js';
 import { symbolLatex } from './symbols.js';
-import { dataAttrs, valueHtml } from './values.js';
+import { dataAttrs, displayText, valueHtml } from './values.js';
 
 export interface StatementView {
   sig: number;
   /** Values by name, for substituting into formulas. */
   values: ReadonlyMap<string, Value>;
+  /** Last good values of names whose statements now fail (live sessions only). */
+  lastGood?: ReadonlyMap<string, Value>;
 }
 
 /** Literal inputs: a number (with unit), a list of them, text, true/false. */
@@ -82,6 +84,18 @@ function blockedHtml(r: StatementResult): string {
   return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: depends on <code>${esc(r.blockedBy!)}</code></div>`;
 }
 
+/** The value a failing statement had before, kept in view and plainly marked as not current. */
+export function lastGoodHtml(name: string | undefined, view: StatementView): string {
+  const v = name === undefined ? undefined : view.lastGood?.get(name);
+  if (!v || name === undefined) return '';
+  // Tables keep their look but lose the machine-readable values: data-si means "current".
+  const shown =
+    v.kind === 'record' || v.kind === 'table' || v.kind === 'figure'
+      ? valueHtml(name, v, view.sig).replace(/ data-(?:name|si|unit)="[^"]*"/g, '')
+      : `<span class="ws-last-good-value">${esc(displayText(v, view.sig))}</span>`;
+  return `<div class="ws-last-good"><span class="ws-last-good-label">last good value, stale</span> ${shown}</div>`;
+}
+
 function resultLatexOrBlock(name: string, v: Value, view: StatementView): { inline?: string; block?: string } {
   const tex = v.kind === 'quantity' || v.kind === 'bool' || v.kind === 'string' ? valueLatex(v, view.sig) : null;
   if (tex) return { inline: tex };
@@ -97,10 +111,10 @@ function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'def
   const head = `<div class="ws-stmt ws-def ${cls}"${attrs({ 'data-line': s.line, id: `v-${s.name}` })}${data}`;
   if (r.error) {
     const formula = mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`);
-    return `${head}><div class="ws-formula">${formula}</div>${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
+    return `${head}><div class="ws-formula">${formula}</div>${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}${lastGoodHtml(s.name, view)}</div>`;
   }
   if (r.blockedBy || r.skipped) {
-    return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`)}</div>${blockedHtml(r)}</div>`;
+    return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`)}</div>${blockedHtml(r)}${r.skipped ? '' : lastGoodHtml(s.name, view)}</div>`;
   }
   const v = r.value!;
   const { inline, block } = resultLatexOrBlock(s.name, v, view);

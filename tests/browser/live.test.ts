@@ -142,6 +142,9 @@ describeInBrowser('live sheet page', () => {
     const error = await page.waitForSelector('main .ws-error');
     expect(await error.textContent()).toContain('line 9');
     expect(await valueShown(page, 'L')).toBe(4.2); // statements that do not depend on it still show
+    // What depends on it keeps its last good value in view, marked stale: Re = 12 × 4.2 / 1.47e-5.
+    expect(await page.textContent('main [data-name="Re"] .ws-last-good')).toMatch(/last good value, stale\s+3\.429×10⁶/i);
+    expect(await valueShown(page, 'Re')).toBeNull(); // and does not pass for a current value
     await writeFile(path.join(dir, 'wing.md'), wingSheet('15 m/s'));
     await page.waitForSelector('main .ws-error', { state: 'detached' });
     await waitForValue(page, 'Re', (15 * 4.2) / 1.47e-5);

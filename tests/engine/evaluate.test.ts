@@ -71,6 +71,39 @@ describe('incremental evaluation', () => {
   });
 });
 
+describe('last good values while a sheet has errors', () => {
+  const text = (u: string) => '# Mast\n\nGust Reynolds number `=Re`.\n\n```basis\nU = ' + u + '\nD = 0.3 m\nnu = 1.5e-5 m^2/s\nRe = U * D / nu\n```\n';
+  const statement = (html: string, name: string) => new RegExp(`<div class="ws-stmt[^"]*"[^>]*data-name="${name}"[\\s\\S]*?(?=<a id="L|$)`).exec(html)![0];
+
+  it('keeps what depends on a broken input in view, marked stale, with only the real error listed', () => {
+    const session = new SheetSession();
+    session.render(text('12 m/s'));
+    const broken = session.render(text('12 m/s + 1 Pa'));
+    const html = broken.parts.map((p) => p.html).join('');
+    expect(broken.errors.map((e) => [e.line, e.message])).toEqual([[6, 'cannot add m/s to Pa']]);
+    // Re = 12 × 0.3 / 1.5e-5 = 2.4e5, computed before the break.
+    const re = statement(html, 'Re');
+    expect(re).toContain('not evaluated: depends on');
+    expect(re).toMatch(/last good value, stale<\/span> <span class="ws-last-good-value">2\.4×10⁵<\/span>/);
+    expect(re).toContain('data-state="not-evaluated"');
+    expect(re).not.toContain('data-si'); // a stale number is not offered as current
+    expect(statement(html, 'U')).toMatch(/ws-last-good-value">12 m\/s</); // the broken input shows its own last good value
+    expect(html).toMatch(/<span class="ws-inline ws-stale-value"[^>]*>2\.4×10⁵ <span class="ws-stale-tag">stale<\/span><\/span>/);
+
+    const mended = session.render(text('13 m/s'));
+    const again = mended.parts.map((p) => p.html).join('');
+    expect(again).not.toContain('ws-last-good');
+    expect(again).not.toContain('ws-stale-value');
+    expect(mended.values.Re!.si).toBeCloseTo((13 * 0.3) / 1.5e-5, 6);
+  });
+
+  it('has no last good value to show on a first evaluation', () => {
+    const html = new SheetSession().render(text('12 m/s + 1 Pa')).parts.map((p) => p.html).join('');
+    expect(html).not.toContain('ws-last-good');
+    expect(html).toContain('ws-inline-error');
+  });
+});
+
 describe('no way out to JavaScript', () => {
   it('never resolves names, fields or calls to JavaScript object properties', async () => {
     const r = await sheet([
