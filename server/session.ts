@@ -86,7 +86,7 @@ export class SheetSession {
       }
     }
     for (const d of parseErrors) {
-      const name = (d as Diagnostic & { name?: string }).name;
+      const name = brokenName(d);
       if (name) failedNames.set(name, d.line);
     }
     let reader: ((p: string) => string) | undefined;
@@ -121,7 +121,7 @@ export class SheetSession {
       const inputs: unknown[] = [];
       for (const item of block.items) {
         if ('type' in item) statementInputs(byLine.get(item.line)!, view, inputs);
-        else inputs.push(item.message, item.line, item.column, view.lastGood.get((item as Diagnostic & { name?: string }).name ?? ''));
+        else inputs.push(item.message, item.line, item.column, view.lastGood.get(brokenName(item) ?? ''));
       }
       const key = `b${i}`;
       const memo = this.parts.get(key);
@@ -131,7 +131,7 @@ export class SheetSession {
         const pieces = block.items.map((item) =>
           'type' in item
             ? this.statement(byLine.get(item.line)!, view)
-            : `<div class="ws-stmt ws-broken" id="L${item.line}" data-line="${item.line}">${errorHtml(item.message, item.line, item.column, (item as Diagnostic & { source?: string }).source)}${lastGoodHtml((item as Diagnostic & { name?: string }).name, view)}</div>`,
+            : `<div class="ws-stmt ws-broken" id="L${item.line}" data-line="${item.line}">${errorHtml(item.message, item.line, item.column, (item as Diagnostic & { source?: string }).source)}${lastGoodHtml(brokenName(item), view)}</div>`,
         );
         html = `<div class="ws-block" data-fence-line="${block.fenceLine}">${pieces.join('')}</div>`;
         this.parts.set(key, { html, inputs });
@@ -249,9 +249,10 @@ export class SheetSession {
   }
 
   private inlineValue(exprText: string, line: number, view: SheetView, errors: ErrorJson[], problems: SummaryItem[]): string {
-    const key = `${line}\u0000${exprText.trim()}`;
+    const text = exprText.trim();
+    const key = `${line}\u0000${text}`;
     try {
-      const { expr: e, names } = this.inlineExpr(key, exprText.trim(), line);
+      const { expr: e, names } = this.inlineExpr(key, text, line);
       const inputs: unknown[] = [view.sig];
       for (const n of names) {
         const current = view.values.get(n) ?? CONSTANTS.get(n);
@@ -278,8 +279,8 @@ export class SheetSession {
       const html = stale
         ? staleInlineHtml(v, view.sig)
         : v.kind === 'record' || v.kind === 'figure' || v.kind === 'table'
-          ? valueHtml(exprText.trim(), v, view.sig)
-          : `<span class="ws-inline"${dataAttrs(exprText.trim(), v)}>${esc(displayText(v, view.sig))}</span>`;
+          ? valueHtml(text, v, view.sig)
+          : `<span class="ws-inline"${dataAttrs(text, v)}>${esc(displayText(v, view.sig))}</span>`;
       if (this.inlineShown.size > 2000) this.inlineShown.clear();
       this.inlineShown.set(key, { html, inputs }); // only values that worked: errors must be reported every run
       return html;
@@ -305,6 +306,11 @@ function statementInputs(r: StatementResult, view: SheetView, out: unknown[]): u
   for (const n of r.uses) out.push(view.values.get(n));
   if ((r.error || r.blockedBy) && r.stmt.type === 'define') out.push(view.lastGood.get(r.stmt.name));
   return out;
+}
+
+/** The name a line that does not parse was meant to define, if it says. */
+function brokenName(d: Diagnostic): string | undefined {
+  return (d as Diagnostic & { name?: string }).name;
 }
 
 /** Marks the memo inputs of an inline value that fell back to a last good value. */

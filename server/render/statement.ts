@@ -86,8 +86,9 @@ function blockedHtml(r: StatementResult): string {
 
 /** The value a failing statement had before, kept in view and plainly marked as not current. */
 export function lastGoodHtml(name: string | undefined, view: StatementView): string {
-  const v = name === undefined ? undefined : view.lastGood?.get(name);
-  if (!v || name === undefined) return '';
+  if (name === undefined) return '';
+  const v = view.lastGood?.get(name);
+  if (!v) return '';
   // Tables keep their look but lose the machine-readable values: data-si means "current".
   const shown =
     v.kind === 'record' || v.kind === 'table' || v.kind === 'figure'

@@ -123,9 +123,9 @@ function fnv(hash: number, code: number): number {
 
 /** Feeds the start tag's name at `at`, lower-cased, and a space. */
 function feedTagName(html: string, at: number, hash: number): number {
-  for (let k = at + 1; k < html.length; k++) {
+  const end = tagNameEnd(html, at);
+  for (let k = at + 1; k < end; k++) {
     const c = html.charCodeAt(k);
-    if (c === GT || c === SLASH || c === 32 || c === 9 || c === 10 || c === 12 || c === 13) break;
     hash = fnv(hash, c >= 65 && c <= 90 ? c + 32 : c);
   }
   return fnv(hash, SPACE);
@@ -161,13 +161,18 @@ function isLetter(code: number): boolean {
 
 /** Lower-case element name of the start tag at `at`. */
 function tagName(html: string, at: number): string {
+  return html.slice(at + 1, tagNameEnd(html, at)).toLowerCase();
+}
+
+/** Where the name of the start tag at `at` ends: at `>`, `/` or white space. */
+function tagNameEnd(html: string, at: number): number {
   let k = at + 1;
   while (k < html.length) {
     const c = html.charCodeAt(k);
     if (c === GT || c === SLASH || c === 32 || c === 9 || c === 10 || c === 12 || c === 13) break;
     k++;
   }
-  return html.slice(at + 1, k).toLowerCase();
+  return k;
 }
 
 function attributesOf(tag: string, nameLength: number): Map<string, string> | null {
