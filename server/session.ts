@@ -4,7 +4,7 @@
 import { basename, dirname, resolve } from 'node:path';
 import { SheetError, diagnostic, type Diagnostic } from './diagnostics.js';
 import { createRegistry, type Registry } from './core/index.js';
-import type { Value } from './core/values.js';
+import type { Value } from './core/index.js';
 import { parseExpression, parseStatement, type Expr, type Statement } from './parse/index.js';
 import { CONSTANTS, EvalCache, evaluateSheet, type StatementResult } from './evaluate/sheet-eval.js';
 import { evaluate } from './evaluate/interpreter.js';
@@ -17,7 +17,7 @@ import { statementHtml, errorHtml, isLiteral, lastGoodHtml, type StatementView }
 import { inlineValueSpans, proseHtml } from './render/prose.js';
 import { summaryHtml, type SummaryItem } from './render/page.js';
 import { dataAttrs, displayText, valueHtml, valueJson } from './render/values.js';
-import { esc } from './render/html.js';
+import { escapeHtml } from './render/html.js';
 import type { CheckJson, ErrorJson, RenderOptions, SheetPart, SheetResult, ValueJson } from './sheet-types.js';
 
 export interface SessionOptions {
@@ -280,7 +280,7 @@ export class SheetSession {
         ? staleInlineHtml(v, view.sig)
         : v.kind === 'record' || v.kind === 'figure' || v.kind === 'table'
           ? valueHtml(text, v, view.sig)
-          : `<span class="ws-inline"${dataAttrs(text, v)}>${esc(displayText(v, view.sig))}</span>`;
+          : `<span class="ws-inline"${dataAttrs(text, v)}>${escapeHtml(displayText(v, view.sig))}</span>`;
       if (this.inlineShown.size > 2000) this.inlineShown.clear();
       this.inlineShown.set(key, { html, inputs }); // only values that worked: errors must be reported every run
       return html;
@@ -289,7 +289,7 @@ export class SheetSession {
       const d = diagnostic(err, line);
       errors.push({ line, column: d.column, message: d.message, code: d.code });
       problems.push({ line, text: d.message, kind: 'error' });
-      return `<span class="ws-inline ws-inline-error" title="${esc(d.message)}">=${esc(exprText)} ⚠ ${esc(d.message)}</span>`;
+      return `<span class="ws-inline ws-inline-error" title="${escapeHtml(d.message)}">=${escapeHtml(exprText)} ⚠ ${escapeHtml(d.message)}</span>`;
     }
   }
 }
@@ -337,7 +337,7 @@ function lastGoodValues(results: readonly StatementResult[], unparsed: Iterable<
 }
 
 function staleInlineHtml(v: Value, sig: number): string {
-  return `<span class="ws-inline ws-stale-value" title="the last good value: not current while a statement it depends on fails">${esc(displayText(v, sig))} <span class="ws-stale-tag">stale</span></span>`;
+  return `<span class="ws-inline ws-stale-value" title="the last good value: not current while a statement it depends on fails">${escapeHtml(displayText(v, sig))} <span class="ws-stale-tag">stale</span></span>`;
 }
 
 function sameList(a: unknown[], b: unknown[]): boolean {

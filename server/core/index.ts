@@ -1,15 +1,19 @@
-// The registry of every trade function, family by family. Add a family here.
-import { Registry, type TradeFunction } from './registry.js';
-import { mathsFunctions } from './maths.js';
-import { fluidFunctions } from './fluids/index.js';
-import { wallFunctions } from './wall/index.js';
+// The trade library: every family's entries in one registry. A family is a
+// folder of pure maths files and one entries.ts; add a new family here.
+import { fluidEntries } from './fluids/entries.js';
+import { mathsEntries } from './maths/entries.js';
+import { Registry, type TradeFunction } from './shared/registry.js';
+import { wallEntries } from './wall/entries.js';
 
-export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsFunctions, fluidFunctions, wallFunctions];
+export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsEntries, fluidEntries, wallEntries];
 
 export function createRegistry(): Registry {
   return new Registry(families.flat());
 }
 
-export { Registry, TradeError } from './registry.js';
-export type { TradeFunction, ParamSpec, CallContext, Args } from './registry.js';
-export type * from './values.js';
+export { Registry, ANY_DIMENSION } from './shared/registry.js';
+export { TradeError } from './shared/trade-error.js';
+export type { TradeFunction, ParamSpec, FieldSpec, CallContext, Args } from './shared/registry.js';
+export type * from './shared/values.js';
+export { escapeHtml } from './shared/escape.js';
+export { bool, describeValue, fieldRecord, figure, list, num, record, shown, si, str, table } from './shared/values.js';

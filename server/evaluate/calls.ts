@@ -3,12 +3,10 @@
 // quantity parameters (a speed sweep gives a list of results).
 import { SheetError } from '../diagnostics.js';
 import type { Expr, Span } from '../parse/ast.js';
-import { TradeError, type ParamSpec, type TradeFunction } from '../core/registry.js';
-import type { ListValue, Value } from '../core/values.js';
+import { ANY_DIMENSION, describeValue, TradeError, type ListValue, type ParamSpec, type TradeFunction, type Value } from '../core/index.js';
 import { parseUnit, UnitError } from '../units/quantity.js';
 import { dimsEqual, isDimensionless } from '../units/dims.js';
 import { unitLabel } from '../units/labels.js';
-import { kindName } from './ops.js';
 import type { Scope } from './interpreter.js';
 
 type CallExpr = Extract<Expr, { type: 'call' }>;
@@ -92,7 +90,7 @@ function bindArgs(entry: TradeFunction, e: CallExpr, scope: Scope, evalArg: (x: 
     }
     if (p.default !== undefined) values[p.name] = scope.defaultOf(entry, p.name);
     else if (!p.optional) {
-      throw new SheetError('bad-argument', `${entry.name}() needs ${p.name}: ${p.doc}${p.unit && p.unit !== '1' ? ` (in ${p.unit})` : ''}`, e.span);
+      throw new SheetError('bad-argument', `${entry.name}() needs ${p.name}: ${p.doc}${p.unit && p.unit !== '1' && p.unit !== ANY_DIMENSION ? ` (in ${p.unit})` : ''}`, e.span);
     }
   }
   return { values, spans };
@@ -108,12 +106,12 @@ function checkQuantity(entry: TradeFunction, p: ParamSpec, v: Value, span: Span)
     v.items.forEach((item) => checkQuantity(entry, p, item, span));
     return;
   }
-  if (v.kind !== 'quantity') throw new SheetError('type', `${p.name} of ${entry.name}() must be a number, not ${kindName(v)}`, span);
-  if (!p.unit) return;
+  if (v.kind !== 'quantity') throw new SheetError('type', `${p.name} of ${entry.name}() must be a number, not ${describeValue(v)}`, span);
+  if (p.unit === ANY_DIMENSION) return;
+  if (p.unit === undefined) throw new SheetError('internal', `${entry.name}() declares no dimension for ${p.name}`, span);
   const want = parseUnit(p.unit);
   if (!dimsEqual(want.dims, v.dims)) {
-    const got = isDimensionless(v.dims) ? 'a plain number' : `a quantity in ${unitLabel(v.dims)}`;
-    throw new SheetError('unit-mismatch', `${p.name} of ${entry.name}() must be ${describeDims(p.unit)} (${p.doc}), not ${got}`, span);
+    throw new SheetError('unit-mismatch', `${p.name} of ${entry.name}() must be ${describeDims(p.unit)} (${p.doc}), not ${describeValue(v)}`, span);
   }
 }
 
@@ -122,16 +120,16 @@ function checkParam(entry: TradeFunction, p: ParamSpec, v: Value, span: Span): v
     case 'quantity':
       return checkQuantity(entry, p, v, span);
     case 'string':
-      if (v.kind !== 'string') throw new SheetError('type', `${p.name} of ${entry.name}() must be text in double quotes, not ${kindName(v)}`, span);
+      if (v.kind !== 'string') throw new SheetError('type', `${p.name} of ${entry.name}() must be text in double quotes, not ${describeValue(v)}`, span);
       if (p.choices && !p.choices.includes(v.value)) {
         throw new SheetError('bad-argument', `${p.name} of ${entry.name}() must be one of ${p.choices.map((c) => `"${c}"`).join(', ')}, not "${v.value}"`, span);
       }
       return;
     case 'bool':
-      if (v.kind !== 'bool') throw new SheetError('type', `${p.name} of ${entry.name}() must be true or false, not ${kindName(v)}`, span);
+      if (v.kind !== 'bool') throw new SheetError('type', `${p.name} of ${entry.name}() must be true or false, not ${describeValue(v)}`, span);
       return;
     case 'record':
-      if (v.kind !== 'record') throw new SheetError('type', `${p.name} of ${entry.name}() must be a record, not ${kindName(v)}`, span);
+      if (v.kind !== 'record') throw new SheetError('type', `${p.name} of ${entry.name}() must be a record, not ${describeValue(v)}`, span);
       return;
     case 'fluid':
       if (v.kind !== 'record' || !v.fields.has('rho') || !(v.fields.has('mu') || v.fields.has('nu'))) {
@@ -139,7 +137,7 @@ function checkParam(entry: TradeFunction, p: ParamSpec, v: Value, span: Span): v
       }
       return;
     case 'list':
-      if (v.kind !== 'list' && v.kind !== 'quantity') throw new SheetError('type', `${p.name} of ${entry.name}() must be a list, not ${kindName(v)}`, span);
+      if (v.kind !== 'list' && v.kind !== 'quantity') throw new SheetError('type', `${p.name} of ${entry.name}() must be a list, not ${describeValue(v)}`, span);
       if (p.unit) checkQuantity(entry, p, v, span);
       return;
     case 'any':

@@ -3,11 +3,11 @@
 // calls only through the trade-function registry.
 import { SheetError } from '../diagnostics.js';
 import type { Expr, Span } from '../parse/ast.js';
-import type { Registry, TradeFunction, CallContext } from '../core/registry.js';
-import type { Value, RecordValue } from '../core/values.js';
+import type { Registry, TradeFunction, CallContext } from '../core/index.js';
+import { describeValue, type RecordValue, type Value } from '../core/index.js';
 import { convert, quantity, UnitError, withUnit } from '../units/quantity.js';
 import { isDimensionless } from '../units/dims.js';
-import { arithmetic, bool, compareValues, kindName, truth, unaryMinus } from './ops.js';
+import { arithmetic, bool, compareValues, truth, unaryMinus } from './ops.js';
 import { callTrade } from './calls.js';
 import type { Budget } from './limits.js';
 
@@ -67,7 +67,7 @@ export function evaluate(e: Expr, scope: Scope): Value {
         kind: 'list',
         items: items.map((v, i) => {
           if (v.kind !== 'quantity' || !isDimensionless(v.dims)) {
-            throw new SheetError('type', `the unit after a list applies to plain numbers; item ${i + 1} is ${v.kind === 'quantity' ? 'a quantity with units' : kindName(v)}`, e.items[i]!.span);
+            throw new SheetError('type', `the unit after a list applies to plain numbers; item ${i + 1} is ${v.kind === 'quantity' ? 'a quantity with units' : describeValue(v)}`, e.items[i]!.span);
           }
           return withUnit(v.si, unit);
         }),
@@ -76,7 +76,7 @@ export function evaluate(e: Expr, scope: Scope): Value {
     case 'convert': {
       const v = evaluate(e.expr, scope);
       return mapItems(v, scope.budget, e.span, (x) => {
-        if (x.kind !== 'quantity') throw new SheetError('type', `cannot convert ${kindName(x)} to ${e.unit.unit.text}`, e.span);
+        if (x.kind !== 'quantity') throw new SheetError('type', `cannot convert ${describeValue(x)} to ${e.unit.unit.text}`, e.span);
         try {
           return convert(x, e.unit.unit);
         } catch (err) {
@@ -98,7 +98,7 @@ export function mapItems(v: Value, budget: Budget, span: Span, f: (x: Value) => 
 
 function fieldOf(v: Value, field: string, span: Span, budget: Budget): Value {
   if (v.kind === 'list') return mapItems(v, budget, span, (x) => fieldOf(x, field, span, budget));
-  if (v.kind !== 'record') throw new SheetError('type', `"${field}" is a field, but this is ${kindName(v)}, not a record`, span);
+  if (v.kind !== 'record') throw new SheetError('type', `"${field}" is a field, but this is ${describeValue(v)}, not a record`, span);
   const f = (v as RecordValue).fields.get(field);
   if (!f) {
     const names = [...v.fields.keys()].join(', ');

@@ -2,31 +2,12 @@
 // broadcast a single value; unit errors are rethrown in the sheet's words.
 import { SheetError } from '../diagnostics.js';
 import type { BinaryOp, CompareOp, Span } from '../parse/ast.js';
-import type { BoolValue, ListValue, Value } from '../core/values.js';
+import { describeValue, type BoolValue, type ListValue, type Value } from '../core/index.js';
 import { add, compare, divide, multiply, negate, power, subtract, UnitError, type Quantity } from '../units/quantity.js';
 import type { Budget } from './limits.js';
 
 type QOp = (a: Quantity, b: Quantity) => Quantity;
 const ARITH: Record<'+' | '-' | '*' | '/' | '^', QOp> = { '+': add, '-': subtract, '*': multiply, '/': divide, '^': power };
-
-export function kindName(v: Value): string {
-  switch (v.kind) {
-    case 'quantity':
-      return 'a number';
-    case 'bool':
-      return 'true/false';
-    case 'string':
-      return 'text';
-    case 'list':
-      return 'a list';
-    case 'record':
-      return 'a record';
-    case 'table':
-      return 'a table';
-    case 'figure':
-      return 'a figure';
-  }
-}
 
 function wrap<T>(span: Span, f: () => T): T {
   try {
@@ -66,7 +47,7 @@ export function arithmetic(op: BinaryOp, a: Value, b: Value, span: Span, budget:
   return broadcast(a, b, span, budget, (x, y) => {
     if (x.kind !== 'quantity' || y.kind !== 'quantity') {
       const bad = x.kind !== 'quantity' ? x : y;
-      throw new SheetError('type', `cannot use ${kindName(bad)} in arithmetic ("${op}")`, span);
+      throw new SheetError('type', `cannot use ${describeValue(bad)} in arithmetic ("${op}")`, span);
     }
     const r = wrap(span, () => f(x, y));
     if (!Number.isFinite(r.si)) throw new SheetError('type', `the result of "${op}" is not a finite number`, span);
@@ -76,7 +57,7 @@ export function arithmetic(op: BinaryOp, a: Value, b: Value, span: Span, budget:
 
 export function unaryMinus(a: Value, span: Span, budget: Budget): Value {
   return broadcast(a, a, span, budget, (x) => {
-    if (x.kind !== 'quantity') throw new SheetError('type', `cannot negate ${kindName(x)}`, span);
+    if (x.kind !== 'quantity') throw new SheetError('type', `cannot negate ${describeValue(x)}`, span);
     return wrap(span, () => negate(x));
   });
 }
@@ -87,7 +68,7 @@ export function bool(value: boolean): BoolValue {
 
 export function truth(v: Value, span: Span): boolean {
   if (v.kind === 'bool') return v.value;
-  throw new SheetError('type', `expected true or false, found ${kindName(v)}`, span);
+  throw new SheetError('type', `expected true or false, found ${describeValue(v)}`, span);
 }
 
 export function compareValues(op: CompareOp, a: Value, b: Value, span: Span, budget: Budget): Value {
@@ -98,7 +79,7 @@ export function compareValues(op: CompareOp, a: Value, b: Value, span: Span, bud
     }
     if (x.kind === 'bool' && y.kind === 'bool' && (op === '==' || op === '!=')) return bool((x.value === y.value) === (op === '=='));
     if (x.kind !== 'quantity' || y.kind !== 'quantity') {
-      throw new SheetError('type', `cannot compare ${kindName(x)} with ${kindName(y)}`, span);
+      throw new SheetError('type', `cannot compare ${describeValue(x)} with ${describeValue(y)}`, span);
     }
     const d = wrap(span, () => compare(x, y));
     // Equality within a relative 1e-12: 0.1 + 0.2 == 0.3 should hold.

@@ -2,8 +2,8 @@
 // run's result for every statement whose text and inputs are unchanged.
 import { SheetError, type Diagnostic, diagnostic } from '../diagnostics.js';
 import type { Span, Statement } from '../parse/ast.js';
-import type { Registry, TradeFunction, CallContext } from '../core/registry.js';
-import type { Value } from '../core/values.js';
+import type { Registry, TradeFunction, CallContext } from '../core/index.js';
+import type { Value } from '../core/index.js';
 import { parseExpression } from '../parse/index.js';
 import { quantity } from '../units/quantity.js';
 import { evaluate, type Scope } from './interpreter.js';

@@ -1,11 +1,11 @@
-// HTML escaping for everything that comes from sheet text.
-export function esc(s: string): string {
-  return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-}
+// Attributes written from values: every value escaped by the one escaper.
+import { escapeHtml } from '../core/index.js';
+
+export { escapeHtml };
 
 export function attrs(a: Record<string, string | number | undefined>): string {
   return Object.entries(a)
     .filter(([, v]) => v !== undefined)
-    .map(([k, v]) => ` ${k}="${esc(String(v))}"`)
+    .map(([k, v]) => ` ${k}="${escapeHtml(String(v))}"`)
     .join('');
 }

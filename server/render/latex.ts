@@ -1,7 +1,7 @@
 // Expression trees as LaTeX, twice: symbolically, and with every name
 // replaced by its value and unit, so a reader can redo the arithmetic.
 import type { Expr } from '../parse/ast.js';
-import type { Value } from '../core/values.js';
+import type { Value } from '../core/index.js';
 import { fieldLatex, symbolLatex, textLatex } from './symbols.js';
 import { shownLatex, showQuantity, unitLatex, formatNumber } from './numbers.js';
 

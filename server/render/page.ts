@@ -1,7 +1,7 @@
 // The frame around a sheet: header with the front matter, the summary, the
 // sheet's own content in one <main>, and the planning caution where due.
 import type { SheetPart, SheetSummary } from '../sheet-types.js';
-import { esc } from './html.js';
+import { escapeHtml } from './html.js';
 
 export interface SummaryItem {
   line: number;
@@ -13,26 +13,26 @@ export function summaryHtml(s: SheetSummary, items: SummaryItem[]): string {
   const state = s.errors > 0 ? 'has-errors' : s.checksFailed > 0 ? 'has-failures' : 'all-clear';
   const cell = (n: number, label: string, cls: string) => `<div class="ws-count ${cls}" data-count="${cls}"><span class="ws-n">${n}</span> ${label}</div>`;
   const list = items.length
-    ? `<ol class="ws-problems">${items.map((i) => `<li class="ws-${i.kind}"><a href="#L${i.line}">line ${i.line}</a> ${esc(i.text)}</li>`).join('')}</ol>`
+    ? `<ol class="ws-problems">${items.map((i) => `<li class="ws-${i.kind}"><a href="#L${i.line}">line ${i.line}</a> ${escapeHtml(i.text)}</li>`).join('')}</ol>`
     : '';
   return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'inputs', 'inputs')}${cell(s.results, 'results', 'results')}${cell(s.checksPassed, 'checks passed', 'passed')}${cell(s.checksFailed, 'checks failed', 'failed')}${cell(s.errors, 'errors', 'errors')}${list}</section>`;
 }
 
 export function headerHtml(title: string, meta: Record<string, string>): string {
   const keys = ['project', 'revision', 'author', 'date'];
-  const facts = keys.filter((k) => meta[k]).map((k) => `<span class="ws-meta-item"><span class="ws-meta-key">${k}</span> ${esc(meta[k]!)}</span>`);
-  return `<header class="ws-header"><h1 class="ws-title">${esc(title)}</h1>${facts.length ? `<div class="ws-meta">${facts.join('')}</div>` : ''}</header>`;
+  const facts = keys.filter((k) => meta[k]).map((k) => `<span class="ws-meta-item"><span class="ws-meta-key">${k}</span> ${escapeHtml(meta[k]!)}</span>`);
+  return `<header class="ws-header"><h1 class="ws-title">${escapeHtml(title)}</h1>${facts.length ? `<div class="ws-meta">${facts.join('')}</div>` : ''}</header>`;
 }
 
 export const CAUTION =
   'Planning estimates only. Loads, pressures and anything structural must be designed to the local codes and checked by a licensed engineer.';
 
 export function cautionHtml(): string {
-  return `<aside class="ws-caution" role="note">${esc(CAUTION)}</aside>`;
+  return `<aside class="ws-caution" role="note">${escapeHtml(CAUTION)}</aside>`;
 }
 
 export function partsHtml(parts: SheetPart[]): string {
-  return parts.map((p) => `<div class="ws-part" data-part="${esc(p.key)}">${p.html}</div>`).join('');
+  return parts.map((p) => `<div class="ws-part" data-part="${escapeHtml(p.key)}">${p.html}</div>`).join('');
 }
 
 export interface PageOptions {
@@ -49,6 +49,6 @@ export interface PageOptions {
 
 export function pageHtml(o: PageOptions): string {
   return `<!doctype html>
-<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${esc(o.title)}</title>${o.head}</head>
+<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${escapeHtml(o.title)}</title>${o.head}</head>
 <body class="ws-page">${headerHtml(o.title, o.meta)}${o.caution ? cautionHtml() : ''}${o.summaryHtml}<main class="ws-sheet">${partsHtml(o.parts)}</main><footer class="ws-footer">Rendered by Wakesheet ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC</footer>${o.tail ?? ''}</body></html>`;
 }

@@ -1,9 +1,9 @@
 // One statement as HTML: inputs as name = value, results as formula =
 // substituted values = result, checks with a pass/fail mark, errors boxed.
 import type { Expr, Statement } from '../parse/ast.js';
-import type { Value } from '../core/values.js';
+import type { Value } from '../core/index.js';
 import type { StatementResult } from '../evaluate/sheet-eval.js';
-import { attrs, esc } from './html.js';
+import { attrs, escapeHtml } from './html.js';
 import { chainHtml, mathHtml } from './katex.js';
 import { exprLatex, valueLatex } from './latex.js';
 import { symbolLatex } from './symbols.js';
@@ -68,20 +68,20 @@ function substituted(e: Expr, view: StatementView): string | null {
 
 function warningsHtml(r: StatementResult): string {
   if (!r.warnings.length) return '';
-  return `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${esc(w)}</li>`).join('')}</ul>`;
+  return `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>`;
 }
 
 function descHtml(d: string | undefined): string {
-  return d ? `<span class="ws-desc">${esc(d)}</span>` : '';
+  return d ? `<span class="ws-desc">${escapeHtml(d)}</span>` : '';
 }
 
 export function errorHtml(message: string, line: number, column: number, source?: string): string {
-  return `<div class="ws-error" role="alert"${attrs({ 'data-line': line, 'data-column': column })}><span class="ws-where">line ${line}, column ${column}</span> <span class="ws-message">${esc(message)}</span>${source ? `<code class="ws-source">${esc(source)}</code>` : ''}</div>`;
+  return `<div class="ws-error" role="alert"${attrs({ 'data-line': line, 'data-column': column })}><span class="ws-where">line ${line}, column ${column}</span> <span class="ws-message">${escapeHtml(message)}</span>${source ? `<code class="ws-source">${escapeHtml(source)}</code>` : ''}</div>`;
 }
 
 function blockedHtml(r: StatementResult): string {
-  if (r.skipped) return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: ${esc(r.skipped)}</div>`;
-  return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: depends on <code>${esc(r.blockedBy!)}</code></div>`;
+  if (r.skipped) return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: ${escapeHtml(r.skipped)}</div>`;
+  return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: depends on <code>${escapeHtml(r.blockedBy!)}</code></div>`;
 }
 
 /** The value a failing statement had before, kept in view and plainly marked as not current. */
@@ -93,7 +93,7 @@ export function lastGoodHtml(name: string | undefined, view: StatementView): str
   const shown =
     v.kind === 'record' || v.kind === 'table' || v.kind === 'figure'
       ? valueHtml(name, v, view.sig).replace(/ data-(?:name|si|unit)="[^"]*"/g, '')
-      : `<span class="ws-last-good-value">${esc(displayText(v, view.sig))}</span>`;
+      : `<span class="ws-last-good-value">${escapeHtml(displayText(v, view.sig))}</span>`;
   return `<div class="ws-last-good"><span class="ws-last-good-label">last good value, stale</span> ${shown}</div>`;
 }
 
@@ -135,7 +135,7 @@ function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'chec
   const symbolic = exprLatex(s.expr, { sig: view.sig });
   const subst = substituted(s.expr, view);
   const formula = chainHtml(symbolic, subst && subst !== symbolic ? [subst] : [], '\\quad\\Longrightarrow\\quad');
-  const label = s.label ? `<span class="ws-label">${esc(s.label)}</span>` : '';
+  const label = s.label ? `<span class="ws-label">${escapeHtml(s.label)}</span>` : '';
   if (r.error) return `<div class="ws-stmt ws-check ws-check-error"${attrs({ 'data-line': s.line })}>${formula}${label}${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
   if (r.blockedBy || r.skipped) return `<div class="ws-stmt ws-check ws-check-blocked"${attrs({ 'data-line': s.line })}>${formula}${label}${blockedHtml(r)}</div>`;
   const pass = r.passed === true;
@@ -158,7 +158,7 @@ function exprHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'expr'
 
 export function statementHtml(r: StatementResult, view: StatementView): string {
   // After a limit the rest of the sheet is listed, not typeset: typesetting is what would take the time.
-  if (r.skipped) return `<div class="ws-stmt ws-skipped"${attrs({ 'data-line': r.stmt.line })}><code class="ws-source">${esc(r.stmt.source)}</code>${blockedHtml(r)}</div>`;
+  if (r.skipped) return `<div class="ws-stmt ws-skipped"${attrs({ 'data-line': r.stmt.line })}><code class="ws-source">${escapeHtml(r.stmt.source)}</code>${blockedHtml(r)}</div>`;
   switch (r.stmt.type) {
     case 'define':
       return defineHtml(r as StatementResult & { stmt: Extract<Statement, { type: 'define' }> }, view);

@@ -1,8 +1,8 @@
 // A value as HTML (with machine-readable data-* attributes) and as JSON.
-import type { RecordValue, Value } from '../core/values.js';
+import type { RecordValue, Value } from '../core/index.js';
 import type { ValueJson } from '../sheet-types.js';
 import { unitLabel } from '../units/labels.js';
-import { attrs, esc } from './html.js';
+import { attrs, escapeHtml } from './html.js';
 import { mathHtml } from './katex.js';
 import { showQuantity, shownLatex, shownPlain, unitPlain } from './numbers.js';
 import { fieldLatex } from './symbols.js';
@@ -92,16 +92,16 @@ export function valueHtml(name: string, v: Value, sig: number): string {
     case 'record':
       return recordHtml(name, v, sig);
     case 'figure':
-      return `<figure class="ws-figure"${attrs({ 'data-name': name })}>${v.svg}${v.caption ? `<figcaption>${esc(v.caption)}</figcaption>` : ''}</figure>`;
+      return `<figure class="ws-figure"${attrs({ 'data-name': name })}>${v.svg}${v.caption ? `<figcaption>${escapeHtml(v.caption)}</figcaption>` : ''}</figure>`;
     case 'table':
       return tableHtml(name, v, sig);
     case 'list':
       if (v.items.some((i) => i.kind === 'record')) {
         return `<div class="ws-list"${dataAttrs(name, v)}>${v.items.map((item, i) => valueHtml(`${name}[${i + 1}]`, item, sig)).join('')}</div>`;
       }
-      return `<span class="ws-value ws-list"${dataAttrs(name, v)}>${esc(displayText(v, sig))}</span>`;
+      return `<span class="ws-value ws-list"${dataAttrs(name, v)}>${escapeHtml(displayText(v, sig))}</span>`;
     default:
-      return `<span class="ws-value ws-text"${dataAttrs(name, v)}>${esc(displayText(v, sig))}</span>`;
+      return `<span class="ws-value ws-text"${dataAttrs(name, v)}>${escapeHtml(displayText(v, sig))}</span>`;
   }
 }
 
@@ -109,28 +109,28 @@ function recordHtml(name: string, r: RecordValue, sig: number): string {
   const owner = name.replace(/\[\d+\]$/, '');
   const rows = [...r.fields].map(([field, f]) => {
     const v = f.value;
-    const sym = v.kind === 'quantity' ? mathHtml(fieldLatex(owner, field)) : '';
+    const sym = v.kind === 'quantity' ? mathHtml(f.symbol ?? fieldLatex(owner, field)) : '';
     let value: string;
     let unit = '';
     if (v.kind === 'quantity') {
       const s = showQuantity(v, sig);
-      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${esc(shownPlain({ ...s, unit: '' }))}</span>`;
-      unit = s.unit === '%' ? '%' : esc(unitPlain(s.unit));
+      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(shownPlain({ ...s, unit: '' }))}</span>`;
+      unit = s.unit === '%' ? '%' : escapeHtml(unitPlain(s.unit));
     } else if (v.kind === 'figure' || v.kind === 'record' || v.kind === 'table') {
       value = valueHtml(`${name}.${field}`, v, sig);
     } else {
-      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${esc(displayText(v, sig))}</span>`;
+      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(displayText(v, sig))}</span>`;
     }
-    return `<tr><td class="ws-field">${esc(field)}</td><td class="ws-sym">${sym}</td><td class="ws-num">${value}</td><td class="ws-unit">${unit}</td><td class="ws-note">${esc(f.note ?? '')}</td></tr>`;
+    return `<tr><td class="ws-field">${escapeHtml(field)}</td><td class="ws-sym">${sym}</td><td class="ws-num">${value}</td><td class="ws-unit">${unit}</td><td class="ws-note">${escapeHtml(f.note ?? '')}</td></tr>`;
   });
-  const warnings = r.warnings.length ? `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${esc(w)}</li>`).join('')}</ul>` : '';
-  const remarks = r.remarks.length ? `<ul class="ws-remarks">${r.remarks.map((w) => `<li>${esc(w)}</li>`).join('')}</ul>` : '';
+  const warnings = r.warnings.length ? `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
+  const remarks = r.remarks.length ? `<ul class="ws-remarks">${r.remarks.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
   const fig = r.figure ? valueHtml(`${name}.figure`, r.figure, sig) : '';
   return `<div class="ws-record"${attrs({ 'data-name': name, 'data-tag': r.tag })}><table class="ws-fields"><thead><tr><th>field</th><th>symbol</th><th>value</th><th>unit</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table>${warnings}${fig}${remarks}</div>`;
 }
 
 function tableHtml(name: string, t: Extract<Value, { kind: 'table' }>, sig: number): string {
-  const head = t.columns.map((c) => `<th>${esc(c)}</th>`).join('');
-  const body = t.rows.map((row) => `<tr>${row.map((cell) => `<td>${esc(displayText(cell, sig))}</td>`).join('')}</tr>`).join('');
+  const head = t.columns.map((c) => `<th>${escapeHtml(c)}</th>`).join('');
+  const body = t.rows.map((row) => `<tr>${row.map((cell) => `<td>${escapeHtml(displayText(cell, sig))}</td>`).join('')}</tr>`).join('');
   return `<table class="ws-table"${attrs({ 'data-name': name })}><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table>`;
 }

@@ -1,11 +1,8 @@
 // HTML shells of the two pages. The sheet's own markup comes from the engine
 // (already sanitised); everything that comes from the file system or the
 // front matter and lands here is escaped. Scripts load from /assets only.
+import { escapeHtml } from '../core/index.js';
 import type { IndexEntry, SheetCondition, SheetFrameMessage } from './protocol.js';
-
-export function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
-}
 
 /** URL of a sheet's page, each path segment encoded. */
 export function sheetUrl(sheet: string): string {

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { TradeError } from '../../server/core/registry.js';
-import { shown, si } from '../../server/core/build.js';
+import { TradeError, shown, si } from '../../server/core/index.js';
 import { airProperties } from '../../server/core/fluids/air.js';
 import { sutherlandViscosity } from '../../server/core/fluids/sutherland.js';
 import { asRecord, call, field, near } from './fluids-helpers.js';

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { TradeError } from '../../server/core/registry.js';
-import { shown, si } from '../../server/core/build.js';
+import { TradeError, shown, si } from '../../server/core/index.js';
 import { geopotentialAltitude, standardAtmosphere } from '../../server/core/fluids/atmosphere.js';
 import { call, field, near } from './fluids-helpers.js';
 

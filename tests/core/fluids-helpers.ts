@@ -1,12 +1,11 @@
 // Shared helpers for the fluid-property tests: calling registry entries the
 // way the engine will (every argument given), and reading record fields.
 import { expect } from 'vitest';
-import { fluidFunctions } from '../../server/core/fluids/index.js';
-import type { Args, CallContext, TradeFunction } from '../../server/core/registry.js';
-import type { RecordValue, Value } from '../../server/core/values.js';
+import { fluidEntries } from '../../server/core/fluids/entries.js';
+import { type Args, type CallContext, type TradeFunction, type RecordValue, type Value } from '../../server/core/index.js';
 
 export function entry(name: string): TradeFunction {
-  const f = fluidFunctions.find((e) => e.name === name);
+  const f = fluidEntries.find((e) => e.name === name);
   if (!f) throw new Error(`no trade function ${name}`);
   return f;
 }

@@ -1,8 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createRegistry } from '../../server/core/index.js';
-import { TradeError } from '../../server/core/registry.js';
-import { shown, si } from '../../server/core/build.js';
-import type { Value } from '../../server/core/values.js';
+import { createRegistry, TradeError, shown, si, type Value } from '../../server/core/index.js';
 import { asRecord, call, field, near, nearRel, siOfValue } from './fluids-helpers.js';
 
 // ISA sea level: rho0 = 1.2250 kg/m^3 (USSA-1976; Kutz Table 6), mu0 = 1.7894e-5 Pa s and

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { TradeError } from '../../server/core/registry.js';
-import { shown, si } from '../../server/core/build.js';
+import { TradeError, shown, si } from '../../server/core/index.js';
 import { seawaterProperties } from '../../server/core/fluids/seawater.js';
 import { asRecord, call, field, nearRel } from './fluids-helpers.js';
 

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { TradeError } from '../../server/core/registry.js';
-import { shown, si } from '../../server/core/build.js';
+import { TradeError, shown, si } from '../../server/core/index.js';
 import { saturationPressure } from '../../server/core/fluids/saturation.js';
 import { waterDensity, waterSpecificVolume } from '../../server/core/fluids/water-density.js';
 import { waterViscosity } from '../../server/core/fluids/water-viscosity.js';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { si } from '../../server/core/build.js';
+import { si } from '../../server/core/index.js';
 import { boundaryLayer } from '../../server/core/wall/boundary-layer.js';
 import { asRecord, call, ISA_MU, ISA_RHO, isaAir, relErr, siField, textField } from './wall-helpers.js';
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { num, si, str } from '../../server/core/build.js';
+import { num, si, str } from '../../server/core/index.js';
 import { bandOf, firstCell } from '../../server/core/wall/first-cell.js';
 import { asQuantity, asRecord, call, ISA_MU, ISA_RHO, isaAir, relErr, siField, stubContext, textField } from './wall-helpers.js';
 

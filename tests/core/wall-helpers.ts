@@ -1,9 +1,7 @@
 // Shared pieces for the near-wall tests: a fluid record, a call context
 // whose data files come from a map, and readers for record fields.
-import { record, si } from '../../server/core/build.js';
-import { wallFunctions } from '../../server/core/wall/index.js';
-import type { Args, CallContext, TradeFunction } from '../../server/core/registry.js';
-import type { Quantity, RecordValue, Value } from '../../server/core/values.js';
+import { record, si, type Args, type CallContext, type TradeFunction, type Quantity, type RecordValue, type Value } from '../../server/core/index.js';
+import { wallEntries } from '../../server/core/wall/entries.js';
 
 /** Sea-level air of the U.S. Standard Atmosphere 1976: rho 1.2250 kg/m³, mu 1.7894e-5 Pa s. */
 export const ISA_RHO = 1.225;
@@ -14,7 +12,7 @@ export const isaAir = record([
 ]);
 
 export function entry(name: string): TradeFunction {
-  const f = wallFunctions.find((e) => e.name === name);
+  const f = wallEntries.find((e) => e.name === name);
   if (!f) throw new Error(`no wall function ${name}`);
   return f;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { num, record, si } from '../../server/core/build.js';
+import { num, record, si } from '../../server/core/index.js';
 import { B, frictionVelocity, KAPPA, spaldingUplus } from '../../server/core/wall/law-of-wall.js';
 import { asQuantity, call, relErr, stubContext } from './wall-helpers.js';
 

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { num, si, str } from '../../server/core/build.js';
-import { TradeError } from '../../server/core/registry.js';
+import { num, si, str, TradeError } from '../../server/core/index.js';
 import { seriesSum, solveStack } from '../../server/core/wall/layer-stack.js';
 import { asRecord, call, relErr, siField } from './wall-helpers.js';
 

@@ -1,8 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { list, num, si, str } from '../../server/core/build.js';
-import { TradeError } from '../../server/core/registry.js';
-import type { Value } from '../../server/core/values.js';
+import { list, num, si, str, TradeError, type Value } from '../../server/core/index.js';
 import { asRecord, call, relErr, siField, stubContext } from './wall-helpers.js';
 
 const FIXTURE = readFileSync(new URL('../fixtures/wall-yplus-small.csv', import.meta.url), 'utf8');

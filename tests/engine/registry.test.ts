@@ -1,7 +1,8 @@
-// Every registered trade function has a doc, a source, units on its quantity
-// parameters where they have a dimension, and an example that evaluates.
+// Every registered trade function has a doc, a source, a declared dimension on
+// every quantity parameter, and an example that evaluates.
 import { describe, expect, it } from 'vitest';
-import { createRegistry } from '../../server/core/index.js';
+import { ANY_DIMENSION, createRegistry } from '../../server/core/index.js';
+import { parseUnit } from '../../server/units/quantity.js';
 import { renderSheet } from '../../server/sheet.js';
 
 const registry = createRegistry();
@@ -12,7 +13,14 @@ describe('trade-function registry', () => {
       expect(fn.doc.length).toBeGreaterThan(5);
       expect(fn.source.length).toBeGreaterThan(5);
       expect(fn.example).toMatch(new RegExp(`^${fn.name}\\(`));
-      for (const p of fn.params) expect(p.doc, `${fn.name}.${p.name} has a doc`).toBeTruthy();
+      for (const p of fn.params) {
+        expect(p.doc, `${fn.name}.${p.name} has a doc`).toBeTruthy();
+        // A quantity parameter says its dimension, or says outright that it takes any.
+        if (p.type === 'quantity') {
+          expect(p.unit, `${fn.name}.${p.name} declares its dimension`).toBeDefined();
+          if (p.unit !== ANY_DIMENSION) expect(() => parseUnit(p.unit!), `${fn.name}.${p.name}: unit ${p.unit}`).not.toThrow();
+        }
+      }
       // Examples may read the bundled demo data: the worksheets folder is their project.
       const r = await renderSheet('```basis\nexample = ' + fn.example + '\n```\n', { root: 'worksheets', path: 'worksheets/example.md' });
       expect(r.errors, `${fn.example}`).toEqual([]);

@@ -3,11 +3,11 @@
 // Humid air: density from the partial pressures of dry air and vapour
 // (Dalton's law, both ideal gases), vapour pressure = RH * p_sat(T) with
 // p_sat from IAPWS-IF97 Eq. 30.
-import { TradeError } from '../registry.js';
+import { TradeError } from '../shared/trade-error.js';
 import { GAMMA_AIR, R_AIR, R_VAPOUR } from './gas-constants.js';
 import { saturationPressure } from './saturation.js';
 import { sutherlandViscosity } from './sutherland.js';
-import { celsius, fmt } from './words.js';
+import { celsiusText, numberText } from '../shared/words.js';
 
 export interface AirProperties {
   rho: number;
@@ -24,22 +24,22 @@ const HUMID_RANGE_K = [273.15, 373.15] as const;
 
 export function airProperties(T: number, p: number, RH = 0): AirProperties {
   checkAbsolute(T);
-  if (!(p > 0)) throw new TradeError(`p = ${fmt(p)} Pa: the pressure must be above zero`);
+  if (!(p > 0)) throw new TradeError(`p = ${numberText(p, { digits: 4 })} Pa: the pressure must be above zero`);
   if (!(RH >= 0 && RH <= 1)) {
-    const hint = RH > 1 && RH <= 100 ? `; write it with its unit, e.g. RH: ${fmt(RH)} %` : '';
-    throw new TradeError(`RH = ${fmt(RH * 100)} % is outside 0 to 100 %${hint}`);
+    const hint = RH > 1 && RH <= 100 ? `; write it with its unit, e.g. RH: ${numberText(RH, { digits: 4 })} %` : '';
+    throw new TradeError(`RH = ${numberText(RH * 100, { digits: 4 })} % is outside 0 to 100 %${hint}`);
   }
   let vapourPressure = 0;
   if (RH > 0) {
     if (T < HUMID_RANGE_K[0] || T > HUMID_RANGE_K[1]) {
       throw new TradeError(
-        `humid air is covered from 0 to 100 \u00b0C (the saturation-pressure formula is for liquid water); got ${celsius(T)}. ` +
+        `humid air is covered from 0 to 100 \u00b0C (the saturation-pressure formula is for liquid water); got ${celsiusText(T)}. ` +
           'Below 0 \u00b0C give RH: 0 %: at sea-level pressure the vapour changes the density by less than 0.3 % there',
       );
     }
     vapourPressure = RH * saturationPressure(T);
     if (vapourPressure >= p) {
-      throw new TradeError(`the vapour pressure ${fmt(vapourPressure)} Pa at ${celsius(T)} reaches the total pressure ${fmt(p)} Pa: the water would boil`);
+      throw new TradeError(`the vapour pressure ${numberText(vapourPressure, { digits: 4 })} Pa at ${celsiusText(T)} reaches the total pressure ${numberText(p, { digits: 4 })} Pa: the water would boil`);
     }
   }
   const rho = (p - vapourPressure) / (R_AIR * T) + vapourPressure / (R_VAPOUR * T);
@@ -48,5 +48,5 @@ export function airProperties(T: number, p: number, RH = 0): AirProperties {
 }
 
 export function checkAbsolute(T: number, name = 'T'): void {
-  if (!(T > 0)) throw new TradeError(`${name} = ${celsius(T)} is ${T === 0 ? 'at' : 'below'} absolute zero`);
+  if (!(T > 0)) throw new TradeError(`${name} = ${celsiusText(T)} is ${T === 0 ? 'at' : 'below'} absolute zero`);
 }

@@ -2,10 +2,10 @@
 // Standard Atmosphere 1976 in this range), for geopotential altitude H from
 // 0 to 20 km: a troposphere with lapse rate 6.5 K/km up to 11 km, then an
 // isothermal layer at 216.65 K; hydrostatic pressure with g0 = 9.80665 m/s^2.
-import { TradeError } from '../registry.js';
+import { TradeError } from '../shared/trade-error.js';
 import { airProperties } from './air.js';
 import { R_AIR } from './gas-constants.js';
-import { fmt } from './words.js';
+import { numberText } from '../shared/words.js';
 
 export const ISA_T0 = 288.15; // K
 export const ISA_P0 = 101325; // Pa
@@ -27,7 +27,7 @@ export interface AtmosphereState {
 
 export function standardAtmosphere(H: number): AtmosphereState {
   if (!(H >= 0 && H <= H_TOP)) {
-    throw new TradeError(`atmosphere() covers geopotential altitudes from 0 to 20 km; got h = ${fmt(H)} m`);
+    throw new TradeError(`atmosphere() covers geopotential altitudes from 0 to 20 km; got h = ${numberText(H, { digits: 4 })} m`);
   }
   const T = H <= H_TROPOPAUSE ? ISA_T0 - LAPSE * H : ISA_T0 - LAPSE * H_TROPOPAUSE;
   const p = H <= H_TROPOPAUSE ? troposphereP(H) : troposphereP(H_TROPOPAUSE) * Math.exp((-ISA_G0 * (H - H_TROPOPAUSE)) / (R_AIR * T));

@@ -2,8 +2,8 @@
 // and a plain-words flat-plate regime. Thresholds are common practice:
 // transition near Re_x = 5e5 on a smooth flat plate, and compressibility
 // effects worth modelling above Ma = 0.3 (density change near 5 %).
-import { TradeError } from '../registry.js';
-import { fmt } from './words.js';
+import { TradeError } from '../shared/trade-error.js';
+import { numberText } from '../shared/words.js';
 
 export const RE_TRANSITION = 5e5;
 /** Above this share of laminar run the plate is called transitional rather than turbulent. */
@@ -11,18 +11,18 @@ export const LAMINAR_SHARE_TURBULENT = 0.1;
 export const MACH_INCOMPRESSIBLE = 0.3;
 
 export function reynoldsNumber(U: number, L: number, nu: number): number {
-  if (!(L > 0)) throw new TradeError(`the length L = ${fmt(L)} m must be above zero`);
-  if (!(nu > 0)) throw new TradeError(`the kinematic viscosity nu = ${fmt(nu)} m^2/s must be above zero`);
+  if (!(L > 0)) throw new TradeError(`the length L = ${numberText(L, { digits: 4 })} m must be above zero`);
+  if (!(nu > 0)) throw new TradeError(`the kinematic viscosity nu = ${numberText(nu, { digits: 4 })} m^2/s must be above zero`);
   return (Math.abs(U) * L) / nu;
 }
 
 export function machNumber(U: number, a: number): number {
-  if (!(a > 0)) throw new TradeError(`the speed of sound a = ${fmt(a)} m/s must be above zero`);
+  if (!(a > 0)) throw new TradeError(`the speed of sound a = ${numberText(a, { digits: 4 })} m/s must be above zero`);
   return Math.abs(U) / a;
 }
 
 export function dynamicPressure(U: number, rho: number): number {
-  if (!(rho > 0)) throw new TradeError(`the density rho = ${fmt(rho)} kg/m^3 must be above zero`);
+  if (!(rho > 0)) throw new TradeError(`the density rho = ${numberText(rho, { digits: 4 })} kg/m^3 must be above zero`);
   return 0.5 * rho * U * U;
 }
 
@@ -39,18 +39,18 @@ export interface RegimeVerdict {
 export function flatPlateRegime(Re: number): RegimeVerdict {
   const laminarShare = Math.min(1, RE_TRANSITION / Re);
   if (Re <= RE_TRANSITION) {
-    return { regime: 'laminar', laminarShare, explanation: `Re = ${fmt(Re, 3)} stays below ${fmt(RE_TRANSITION, 1)}: a smooth flat plate of this length stays laminar` };
+    return { regime: 'laminar', laminarShare, explanation: `Re = ${numberText(Re, { notation: 'sci' })} stays below ${numberText(RE_TRANSITION, { notation: 'sci' })}: a smooth flat plate of this length stays laminar` };
   }
-  const where = `transition expected about ${fmt(laminarShare * 100, 2)} % of the length from the leading edge`;
+  const where = `transition expected about ${numberText(laminarShare * 100, { digits: 2 })} % of the length from the leading edge`;
   if (laminarShare > LAMINAR_SHARE_TURBULENT) {
-    return { regime: 'transitional', laminarShare, explanation: `Re = ${fmt(Re, 3)}: ${where}, so a large laminar part remains` };
+    return { regime: 'transitional', laminarShare, explanation: `Re = ${numberText(Re, { notation: 'sci' })}: ${where}, so a large laminar part remains` };
   }
-  return { regime: 'turbulent', laminarShare, explanation: `Re = ${fmt(Re, 3)}: ${where}; the boundary layer is turbulent over most of the length` };
+  return { regime: 'turbulent', laminarShare, explanation: `Re = ${numberText(Re, { notation: 'sci' })}: ${where}; the boundary layer is turbulent over most of the length` };
 }
 
 /** Warnings about compressibility, or none below Ma 0.3. */
 export function compressibilityWarnings(Ma: number): string[] {
-  if (Ma >= 1) return [`Ma = ${fmt(Ma, 3)}: supersonic flow; shocks form and an incompressible set-up does not apply`];
-  if (Ma > MACH_INCOMPRESSIBLE) return [`Ma = ${fmt(Ma, 3)} is above 0.3: density changes exceed about 5 %, so use a compressible solver set-up`];
+  if (Ma >= 1) return [`Ma = ${numberText(Ma, { digits: 3 })}: supersonic flow; shocks form and an incompressible set-up does not apply`];
+  if (Ma > MACH_INCOMPRESSIBLE) return [`Ma = ${numberText(Ma, { digits: 3 })} is above 0.3: density changes exceed about 5 %, so use a compressible solver set-up`];
   return [];
 }

@@ -1,7 +1,9 @@
 // Flat-plate boundary-layer thicknesses at a station x from the leading edge.
 // Laminar below the transition Reynolds number, turbulent (from the leading
 // edge) above it; the regime is reported so the sheet can say which was used.
-import { RE_TRANSITION, sci } from './skin-friction.js';
+import { TradeError } from '../shared/trade-error.js';
+import { numberText } from '../shared/words.js';
+import { RE_TRANSITION } from './skin-friction.js';
 
 export interface BoundaryLayer {
   Re_x: number;
@@ -22,9 +24,9 @@ const POWER_LAW_MAX = 1e7;
  * whose profile u/U = (y/δ)^(1/7) integrates to δ* = δ/8 and θ = 7δ/72.
  */
 export function boundaryLayer(U: number, x: number, nu: number): BoundaryLayer {
-  if (!(U > 0)) throw new RangeError('the free-stream speed U must be positive');
-  if (!(x > 0)) throw new RangeError('the distance x from the leading edge must be positive');
-  if (!(nu > 0)) throw new RangeError('the kinematic viscosity must be positive');
+  if (!(U > 0)) throw new TradeError('the free-stream speed U must be positive');
+  if (!(x > 0)) throw new TradeError('the distance x from the leading edge must be positive');
+  if (!(nu > 0)) throw new TradeError('the kinematic viscosity must be positive');
   const Re_x = (U * x) / nu;
   const warnings: string[] = [];
   if (Re_x < RE_TRANSITION) {
@@ -33,7 +35,7 @@ export function boundaryLayer(U: number, x: number, nu: number): BoundaryLayer {
   }
   if (Re_x > POWER_LAW_MAX) {
     warnings.push(
-      `Re_x = ${sci(Re_x)} is above ${sci(POWER_LAW_MAX)}, the upper end of the one-seventh power law (Schlichting, Eq. 21.12); δ is an estimate.`,
+      `Re_x = ${numberText(Re_x, { notation: 'sci' })} is above ${numberText(POWER_LAW_MAX, { notation: 'sci' })}, the upper end of the one-seventh power law (Schlichting, Eq. 21.12); δ is an estimate.`,
     );
   }
   const delta = 0.37 * x * Math.pow(Re_x, -0.2);

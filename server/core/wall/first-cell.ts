@@ -1,5 +1,6 @@
 // First-cell height for a target y+, and its inverse, from a flat-plate
 // skin-friction estimate at the body length (Re built on L).
+import { TradeError } from '../shared/trade-error.js';
 import { skinFriction, type SkinFrictionMethod } from './skin-friction.js';
 
 export const PLACEMENTS = ['centroid', 'height'] as const;
@@ -43,8 +44,8 @@ export interface WallScales {
 
 /** τ_w = ½ ρ U² c_f, u_τ = √(τ_w/ρ), l_visc = ν/u_τ (definitions; e.g. Pope 2000, §7.1). */
 export function wallScales(U: number, L: number, rho: number, nu: number, method: SkinFrictionMethod): WallScales {
-  if (!(U > 0)) throw new RangeError('the free-stream speed U must be positive');
-  if (!(L > 0)) throw new RangeError('the reference length L must be positive');
+  if (!(U > 0)) throw new TradeError('the free-stream speed U must be positive');
+  if (!(L > 0)) throw new TradeError('the reference length L must be positive');
   const Re = (U * L) / nu;
   const { cf, warnings } = skinFriction(Re, method);
   const tau_w = 0.5 * rho * U * U * cf;
@@ -65,7 +66,7 @@ export interface FirstCell extends WallScales {
 export function firstCell(
   U: number, L: number, rho: number, nu: number, yplus: number, method: SkinFrictionMethod, placement: Placement,
 ): FirstCell {
-  if (!(yplus > 0)) throw new RangeError('the target y+ must be positive');
+  if (!(yplus > 0)) throw new TradeError('the target y+ must be positive');
   const s = wallScales(U, L, rho, nu, method);
   const atTarget = yplus * s.l_visc;
   const height = placement === 'centroid' ? 2 * atTarget : atTarget;
@@ -76,7 +77,7 @@ export function firstCell(
 export function yplusOf(
   height: number, U: number, L: number, rho: number, nu: number, method: SkinFrictionMethod, placement: Placement,
 ): { yplus: number; warnings: string[] } {
-  if (!(height > 0)) throw new RangeError('the first-cell height must be positive');
+  if (!(height > 0)) throw new TradeError('the first-cell height must be positive');
   const s = wallScales(U, L, rho, nu, method);
   const at = placement === 'centroid' ? height / 2 : height;
   return { yplus: at / s.l_visc, warnings: s.warnings };

@@ -1,6 +1,7 @@
 // Spalding's single formula for the law of the wall, from the viscous
 // sublayer through the log layer, and the friction velocity it implies
 // for a velocity sample at a known wall distance.
+import { TradeError } from '../shared/trade-error.js';
 
 /** Log-law constants of Coles & Hirst (1968), used with Spalding's form (from memory). */
 export const KAPPA = 0.41;
@@ -18,7 +19,7 @@ export function spaldingYplus(uplus: number, kappa = KAPPA, b = B): number {
 
 /** u+ for a given y+: y+(u+) rises steadily, so Newton steps kept inside a bracket converge. */
 export function spaldingUplus(yplus: number, kappa = KAPPA, b = B): number {
-  if (!(Number.isFinite(yplus) && yplus >= 0)) throw new RangeError(`y+ must be zero or positive, not ${yplus}`);
+  if (!(Number.isFinite(yplus) && yplus >= 0)) throw new TradeError(`y+ must be zero or positive, not ${yplus}`);
   if (yplus === 0) return 0;
   const f = (u: number) => spaldingYplus(u, kappa, b) - yplus;
   // y+ ≥ u+, so the root lies in [0, y+]; the log law bounds it far from the wall too.
@@ -46,9 +47,9 @@ export function spaldingUplus(yplus: number, kappa = KAPPA, b = B): number {
  * rises with u+; solve that for u+ by bisection and return u_τ = U_p/u+.
  */
 export function frictionVelocity(Up: number, yp: number, nu: number, kappa = KAPPA, b = B): { u_tau: number; yplus: number; uplus: number } {
-  if (!(Up > 0)) throw new RangeError('the sampled velocity must be positive');
-  if (!(yp > 0)) throw new RangeError('the wall distance must be positive');
-  if (!(nu > 0)) throw new RangeError('the kinematic viscosity must be positive');
+  if (!(Up > 0)) throw new TradeError('the sampled velocity must be positive');
+  if (!(yp > 0)) throw new TradeError('the wall distance must be positive');
+  if (!(nu > 0)) throw new TradeError('the kinematic viscosity must be positive');
   const rep = (Up * yp) / nu;
   const g = (u: number) => u * spaldingYplus(u, kappa, b) - rep;
   let lo = 0;

@@ -1,6 +1,7 @@
 // Wall-layer (prism) stacks as a geometric series: layer i has height
 // first·growth^i, so total = first (growth^count − 1)/(growth − 1) and
 // last = first·growth^(count−1). Any three of the four give the fourth.
+import { TradeError } from '../shared/trade-error.js';
 
 export type StackUnknown = 'first' | 'growth' | 'count' | 'total';
 
@@ -38,7 +39,7 @@ export function solveStack(given: StackGiven): Stack {
   const missing = names.filter((k) => given[k] === undefined);
   if (missing.length !== 1) {
     const have = names.filter((k) => given[k] !== undefined);
-    throw new RangeError(
+    throw new TradeError(
       `give exactly three of first, growth, count and total (given: ${have.length ? have.join(', ') : 'none'})`,
     );
   }
@@ -65,14 +66,14 @@ export function solveStack(given: StackGiven): Stack {
 
 function checkPositive(given: StackGiven): void {
   for (const [k, v] of Object.entries(given)) {
-    if (v !== undefined && !(Number.isFinite(v) && v > 0)) throw new RangeError(`${k} must be a positive number, not ${v}`);
+    if (v !== undefined && !(Number.isFinite(v) && v > 0)) throw new TradeError(`${k} must be a positive number, not ${v}`);
   }
 }
 
 function wholeCount(count: number): number {
   const n = Math.round(count);
-  if (Math.abs(count - n) > 1e-9 || n < 1) throw new RangeError(`count must be a whole number of layers, not ${count}`);
-  if (n > MAX_LAYERS) throw new RangeError(`count ${n} is more than the ${MAX_LAYERS} layers a stack may have`);
+  if (Math.abs(count - n) > 1e-9 || n < 1) throw new TradeError(`count must be a whole number of layers, not ${count}`);
+  if (n > MAX_LAYERS) throw new TradeError(`count ${n} is more than the ${MAX_LAYERS} layers a stack may have`);
   return n;
 }
 
@@ -89,7 +90,7 @@ function solveCount(first: number, growth: number, total: number): number {
   else {
     const arg = 1 + ratio * (growth - 1);
     if (arg <= 0) {
-      throw new RangeError(
+      throw new TradeError(
         `with growth ${growth} the layers shrink and their sum never passes ${(1 / (1 - growth)).toPrecision(4)} × first, short of the total`,
       );
     }
@@ -97,7 +98,7 @@ function solveCount(first: number, growth: number, total: number): number {
   }
   // A total that is an exact series sum must not gain a layer from rounding noise.
   const n = Math.max(1, Math.ceil(exact - 1e-9));
-  if (n > MAX_LAYERS) throw new RangeError(`the total needs ${n} layers, more than the ${MAX_LAYERS} a stack may have`);
+  if (n > MAX_LAYERS) throw new TradeError(`the total needs ${n} layers, more than the ${MAX_LAYERS} a stack may have`);
   return n;
 }
 
@@ -108,9 +109,9 @@ function solveCount(first: number, growth: number, total: number): number {
 export function solveGrowth(ratio: number, n: number): number {
   if (n === 1) {
     if (Math.abs(ratio - 1) < 1e-12) return 1;
-    throw new RangeError('a single layer has no growth ratio unless total equals first');
+    throw new TradeError('a single layer has no growth ratio unless total equals first');
   }
-  if (ratio <= 1) throw new RangeError(`total must be more than first when there are ${n} layers`);
+  if (ratio <= 1) throw new TradeError(`total must be more than first when there are ${n} layers`);
   if (Math.abs(ratio - n) <= 1e-12 * n) return 1;
   const f = (g: number) => seriesSum(g, n) - ratio;
   let lo: number;
@@ -121,7 +122,7 @@ export function solveGrowth(ratio: number, n: number): number {
     while (f(hi) < 0) {
       lo = hi;
       hi *= 2;
-      if (hi > 1e6) throw new RangeError('no growth ratio below 1e6 reaches that total');
+      if (hi > 1e6) throw new TradeError('no growth ratio below 1e6 reaches that total');
     }
   } else {
     hi = 1;
@@ -129,7 +130,7 @@ export function solveGrowth(ratio: number, n: number): number {
     while (f(lo) > 0) {
       hi = lo;
       lo /= 2;
-      if (lo < 1e-12) throw new RangeError('no positive growth ratio gives that total');
+      if (lo < 1e-12) throw new TradeError('no positive growth ratio gives that total');
     }
   }
   for (let i = 0; i < 200 && hi - lo > 1e-15 * hi; i++) {

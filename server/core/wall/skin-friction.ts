@@ -1,6 +1,8 @@
 // Smooth flat-plate skin-friction correlations at zero pressure gradient.
 // Each method carries the Reynolds-number range it was fitted for; outside it
 // the value is still returned, with a warning in plain words.
+import { TradeError } from '../shared/trade-error.js';
+import { numberText } from '../shared/words.js';
 
 export const SKIN_FRICTION_METHODS = ['blasius', 'schlichting', 'power', 'ittc1957', 'white'] as const;
 export type SkinFrictionMethod = (typeof SKIN_FRICTION_METHODS)[number];
@@ -92,19 +94,14 @@ export function skinFrictionSource(method: SkinFrictionMethod): string {
   return METHODS[method].source;
 }
 
-/** Skin-friction coefficient by the chosen correlation; throws RangeError where the formula has no value. */
+/** Skin-friction coefficient by the chosen correlation; throws TradeError where the formula has no value. */
 export function skinFriction(re: number, method: SkinFrictionMethod): SkinFrictionResult {
   const m = METHODS[method];
-  if (!(Number.isFinite(re) && re > 0)) throw new RangeError(`the Reynolds number must be a positive number, not ${re}`);
-  if (!m.defined(re)) throw new RangeError(`the ${method} formula has no value at Re = ${sci(re)}`);
+  if (!(Number.isFinite(re) && re > 0)) throw new TradeError(`the Reynolds number must be a positive number, not ${re}`);
+  if (!m.defined(re)) throw new TradeError(`the ${method} formula has no value at Re = ${numberText(re, { notation: 'sci' })}`);
   const warnings: string[] = [];
-  if (m.min && re < m.min.re) warnings.push(`Re = ${sci(re)} is below ${sci(m.min.re)} for the ${method} formula: ${m.min.why}.`);
-  if (m.max && re > m.max.re) warnings.push(`Re = ${sci(re)} is above ${sci(m.max.re)} for the ${method} formula: ${m.max.why}.`);
+  if (m.min && re < m.min.re) warnings.push(`Re = ${numberText(re, { notation: 'sci' })} is below ${numberText(m.min.re, { notation: 'sci' })} for the ${method} formula: ${m.min.why}.`);
+  if (m.max && re > m.max.re) warnings.push(`Re = ${numberText(re, { notation: 'sci' })} is above ${numberText(m.max.re, { notation: 'sci' })} for the ${method} formula: ${m.max.why}.`);
   if (m.mean) warnings.push(`${method} gives the mean coefficient over the length Re is built on, not the local value.`);
   return { cf: m.formula(re), mean: m.mean, regime: m.regime, warnings };
-}
-
-/** Compact scientific text for messages: 5e5, 1.2e7. */
-export function sci(x: number): string {
-  return x.toExponential(2).replace(/\.?0+e/, 'e').replace('e+', 'e');
 }

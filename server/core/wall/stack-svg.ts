@@ -1,7 +1,8 @@
 // Picture of a wall-layer stack standing on the wall, to scale, with the
 // boundary-layer edge drawn. A log axis shows the thin first layers that a
 // linear axis squeezes into the wall line.
-import { esc, lengthLabel, niceStep, px, sig3, svgDocument, text } from './svg.js';
+import { niceStep, px, svgDocument, text, verticalText } from '../shared/svg.js';
+import { lengthText, numberText } from '../shared/words.js';
 
 export type StackScale = 'linear' | 'log';
 
@@ -50,26 +51,26 @@ export function stackSvg(p: StackPicture): string {
   if (lines.length) body.push(`<path d="${lines.join('')}" stroke="#33475b" stroke-width="0.5" fill="none"/>`);
 
   const labels: Label[] = [
-    { y: map.at(total) + 4, text: `total ${lengthLabel(total)}` },
-    { y: map.at(first) + 4, text: `first ${lengthLabel(first)}` },
+    { y: map.at(total) + 4, text: `total ${lengthText(total)}` },
+    { y: map.at(first) + 4, text: `first ${lengthText(first)}` },
   ];
   if (p.heights.length > 1) {
     const last = p.heights[p.heights.length - 1]!;
-    labels.push({ y: (map.at(total) + map.at(total - last)) / 2 + 4, text: `last ${lengthLabel(last)}`, optional: true });
+    labels.push({ y: (map.at(total) + map.at(total - last)) / 2 + 4, text: `last ${lengthText(last)}`, optional: true });
   }
   if (p.core !== undefined) {
     const yc = map.at(total + p.core);
     body.push(`<rect x="${px(LEFT)}" y="${px(yc)}" width="${px(RIGHT - LEFT)}" height="${px(map.at(total) - yc)}" fill="none" stroke="#33475b" stroke-width="0.8" stroke-dasharray="4 3"/>`);
-    labels.push({ y: yc + 4, text: `core cell ${lengthLabel(p.core)}` });
+    labels.push({ y: yc + 4, text: `core cell ${lengthText(p.core)}` });
   }
   body.push(...wallLine());
   if (p.delta !== undefined) {
     const yd = map.at(p.delta);
     body.push(`<path d="M${px(LEFT - 8)} ${px(yd)}H${px(W - 12)}" stroke="#a33b20" stroke-width="1.2" stroke-dasharray="6 3" fill="none"/>`);
-    labels.push({ y: yd - 4, text: `boundary-layer edge δ = ${lengthLabel(p.delta)}`, colour: '#a33b20' });
+    labels.push({ y: yd - 4, text: `boundary-layer edge δ = ${lengthText(p.delta)}`, colour: '#a33b20' });
   }
   for (const l of placeLabels(labels)) body.push(text(RIGHT + 6, l.y, l.text, l.colour ? `fill="${l.colour}"` : ''));
-  const heading = `${p.heights.length} layers, growth ${sig3(p.growth)} (${p.scale} scale)`;
+  const heading = `${p.heights.length} layers, growth ${numberText(p.growth)} (${p.scale} scale)`;
   body.push(text(8, 16, heading, 'font-weight="bold"'));
   if (skipped) body.push(text(8, H - 8, `${skipped} layer lines thinner than a pixel are not drawn separately`, 'font-size="9"'));
   return svgDocument(W, H, `Wall-layer stack: ${heading}`, body);
@@ -127,11 +128,11 @@ function axis(map: AxisMap, scale: StackScale): string[] {
   for (const t of map.ticks) {
     const yy = map.at(t);
     out.push(`<path d="M${px(AXIS_X - 4)} ${px(yy)}H${px(AXIS_X)}" stroke="#555555" stroke-width="0.8"/>`);
-    out.push(text(AXIS_X - 6, yy + 4, t === 0 ? '0' : lengthLabel(t), 'text-anchor="end" font-size="9"'));
+    out.push(text(AXIS_X - 6, yy + 4, t === 0 ? '0' : lengthText(t), 'text-anchor="end" font-size="9"'));
   }
   const mid = (TOP + WALL) / 2;
   const label = scale === 'log' ? 'distance from wall (log axis; the wall lies below its lowest tick)' : 'distance from wall';
-  out.push(`<text x="0" y="0" transform="translate(12 ${px(mid)}) rotate(-90)" text-anchor="middle" font-size="9">${esc(label)}</text>`);
+  out.push(verticalText(12, mid, label, 'font-size="9"'));
   return out;
 }
 

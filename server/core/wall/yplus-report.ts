@@ -1,5 +1,6 @@
 // Statistics of the wall y+ a solver run produced, and the first-layer height
 // that would bring its mean to the target on the next mesh.
+import { TradeError } from '../shared/trade-error.js';
 
 export interface YplusStats {
   count: number;
@@ -26,7 +27,7 @@ export function quantile(sorted: readonly number[], p: number): number {
 
 /** Percentiles count faces; the weighted mean and the in-band share weigh each face (by area). */
 export function yplusStats(values: readonly number[], weights: readonly number[], band: readonly [number, number]): YplusStats {
-  if (values.length === 0) throw new RangeError('no samples');
+  if (values.length === 0) throw new TradeError('no samples');
   const sorted = [...values].sort((a, b) => a - b);
   const wsum = weights.reduce((a, b) => a + b, 0);
   let wv = 0;
@@ -55,6 +56,6 @@ export function yplusStats(values: readonly number[], weights: readonly number[]
  * target; a few such steps are usual because u_τ shifts with the mesh.
  */
 export function correctedFirst(first: number, target: number, observedMean: number): number {
-  if (!(observedMean > 0)) throw new RangeError('the observed mean y+ is zero, so no correction can be scaled from it');
+  if (!(observedMean > 0)) throw new TradeError('the observed mean y+ is zero, so no correction can be scaled from it');
   return (first * target) / observedMean;
 }

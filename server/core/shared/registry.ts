@@ -1,5 +1,6 @@
-// The trade-function registry: each entry declares its parameters with units
-// and defaults, a one-line doc, its published source and an example call.
+// The trade-function registry: each entry declares its parameters (with their
+// dimension and default), the fields it returns, a one-line doc, its published
+// source and an example call.
 import type { Value } from './values.js';
 
 export type ParamType = 'quantity' | 'string' | 'bool' | 'list' | 'record' | 'fluid' | 'any';
@@ -7,7 +8,11 @@ export type ParamType = 'quantity' | 'string' | 'bool' | 'list' | 'record' | 'fl
 export interface ParamSpec {
   readonly name: string;
   readonly type: ParamType;
-  /** Expected dimension, as unit text ("m/s", "Pa s", "1" for a plain number). */
+  /**
+   * The dimension a quantity (or list of quantities) must have, as unit text
+   * ("m/s", "Pa s", "1" for a plain number), or "any" for any dimension.
+   * Every quantity parameter says which.
+   */
   readonly unit?: string;
   /** Default as worksheet source text ("101325 Pa", "\"schlichting\"", "[0.5, 5]"). */
   readonly default?: string;
@@ -15,6 +20,16 @@ export interface ParamSpec {
   readonly optional?: boolean;
   /** For string parameters: the accepted words. */
   readonly choices?: readonly string[];
+  readonly doc: string;
+}
+
+/** A field of the record a trade function returns. */
+export interface FieldSpec {
+  readonly name: string;
+  /** The field's mathematical symbol, in LaTeX ("\\delta^{*}", "u_{\\tau}"). */
+  readonly symbol: string;
+  /** Its dimension as unit text ("m", "1"), "text" for words, "list" or "table". */
+  readonly unit: string;
   readonly doc: string;
 }
 
@@ -30,6 +45,8 @@ export type Args = Readonly<Record<string, Value | undefined>>;
 export interface TradeFunction {
   readonly name: string;
   readonly params: readonly ParamSpec[];
+  /** The fields of the returned record, when it returns one. */
+  readonly fields?: readonly FieldSpec[];
   /** One line: what it returns. */
   readonly doc: string;
   /** Method and published source, e.g. "Sutherland's law, U.S. Standard Atmosphere 1976, Eq. 51". */
@@ -39,8 +56,8 @@ export interface TradeFunction {
   compute(args: Args, ctx: CallContext): Value;
 }
 
-/** Thrown by trade functions for bad input; shown in the sheet in these words. */
-export class TradeError extends Error {}
+/** Unit text of a parameter that takes a quantity of any dimension. */
+export const ANY_DIMENSION = 'any';
 
 export class Registry {
   private readonly table = new Map<string, TradeFunction>();

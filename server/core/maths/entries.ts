@@ -1,13 +1,13 @@
 // Basic maths for worksheets. Functions of plain numbers reject units; sqrt and
 // abs/min/max keep them. Trigonometric arguments are in radians (deg converts).
-import { power, quantity, type Quantity } from '../units/quantity.js';
-import { dimsEqual, isDimensionless } from '../units/dims.js';
-import { unitLabel } from '../units/labels.js';
-import { num } from './build.js';
-import { type Args, TradeError, type TradeFunction, type ParamSpec } from './registry.js';
-import type { Value } from './values.js';
+import { power, quantity, type Quantity } from '../../units/quantity.js';
+import { dimsEqual, isDimensionless } from '../../units/dims.js';
+import { unitLabel } from '../../units/labels.js';
+import { ANY_DIMENSION, type Args, type ParamSpec, type TradeFunction } from '../shared/registry.js';
+import { TradeError } from '../shared/trade-error.js';
+import { num, type Value } from '../shared/values.js';
 
-const X: ParamSpec[] = [{ name: 'x', type: 'quantity', doc: 'argument' }];
+const X: ParamSpec[] = [{ name: 'x', type: 'quantity', unit: ANY_DIMENSION, doc: 'argument' }];
 
 function q(args: Args, name = 'x'): Quantity {
   const v = args[name];
@@ -68,7 +68,7 @@ function collect(args: Args): Quantity[] {
   return out;
 }
 
-export const mathsFunctions: TradeFunction[] = [
+export const mathsEntries: TradeFunction[] = [
   {
     name: 'sqrt',
     params: X,
@@ -103,8 +103,8 @@ export const mathsFunctions: TradeFunction[] = [
   {
     name: 'linspace',
     params: [
-      { name: 'start', type: 'quantity', doc: 'first value' },
-      { name: 'stop', type: 'quantity', doc: 'last value (same unit as start)' },
+      { name: 'start', type: 'quantity', unit: ANY_DIMENSION, doc: 'first value' },
+      { name: 'stop', type: 'quantity', unit: ANY_DIMENSION, doc: 'last value (same unit as start)' },
       { name: 'count', type: 'quantity', unit: '1', default: '11', doc: 'number of values, 2 to 100000' },
     ],
     doc: 'evenly spaced values from start to stop, for sweeps',
@@ -123,7 +123,7 @@ export const mathsFunctions: TradeFunction[] = [
   },
   {
     name: 'sum',
-    params: [{ name: 'values', type: 'list', doc: 'a list of numbers or quantities of one unit' }],
+    params: [{ name: 'values', type: 'list', unit: ANY_DIMENSION, doc: 'a list of numbers or quantities of one unit' }],
     doc: 'the sum of a list',
     source: 'definition',
     example: 'sum([1, 2, 3] m)',
@@ -133,7 +133,7 @@ export const mathsFunctions: TradeFunction[] = [
   },
   {
     name: 'mean',
-    params: [{ name: 'values', type: 'list', doc: 'a list of numbers or quantities of one unit' }],
+    params: [{ name: 'values', type: 'list', unit: ANY_DIMENSION, doc: 'a list of numbers or quantities of one unit' }],
     doc: 'the arithmetic mean of a list',
     source: 'definition',
     example: 'mean([1, 2, 3] m)',

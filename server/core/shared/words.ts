@@ -1,0 +1,55 @@
+// Numbers as they appear in warnings, remarks, error messages and figure
+// labels: the one wording every trade family uses. A few significant figures
+// with trailing zeros dropped, a real minus sign, powers of ten as "1.2e7".
+
+export interface NumberStyle {
+  /** Significant figures (default 3). */
+  digits?: number;
+  /** "sci": always a power of ten, as Reynolds numbers are written (5e5, 1.2e7). */
+  notation?: 'auto' | 'sci';
+}
+
+/**
+ * 0.0400 → "0.04", 101325 → "101325" (a whole number below a million keeps
+ * every digit), 2.3e-5 → "2.3e−5", −3 → "−3".
+ */
+export function numberText(x: number, style: NumberStyle = {}): string {
+  const digits = style.digits ?? 3;
+  if (!Number.isFinite(x)) return Number.isNaN(x) ? 'not a number' : x > 0 ? 'infinity' : '−infinity';
+  if (x === 0) return '0';
+  const a = Math.abs(x);
+  let text: string;
+  if (style.notation === 'sci' || a >= 1e6 || a < 1e-3) text = exponentText(x, digits);
+  else if (Number.isInteger(x)) text = String(x);
+  else text = String(Number(x.toPrecision(digits)));
+  return text.replace(/-/g, '\u2212');
+}
+
+function exponentText(x: number, digits: number): string {
+  const [mantissa, exponent] = x.toExponential(Math.max(0, digits - 1)).split('e');
+  const m = mantissa!.includes('.') ? mantissa!.replace(/0+$/, '').replace(/\.$/, '') : mantissa!;
+  return `${m}e${exponent!.replace('+', '')}`;
+}
+
+/** A temperature given in kelvin, written in °C for the reader. */
+export function celsiusText(T: number): string {
+  return `${numberText(T - 273.15, { digits: 4 })} \u00b0C`;
+}
+
+/** A length in m shown in µm, mm or m by its size: 2.3e-5 → "23 µm". */
+export function lengthText(m: number): string {
+  const a = Math.abs(m);
+  if (a >= 1) return `${numberText(m)} m`;
+  if (a >= 1e-3) return `${numberText(m * 1e3)} mm`;
+  return `${numberText(m * 1e6)} µm`;
+}
+
+/** A fraction as a percentage: 0.0512 → "5.12 %". */
+export function percentText(fraction: number, digits = 3): string {
+  return `${numberText(fraction * 100, { digits })} %`;
+}
+
+/** Words quoted for a message: "linear", "log". */
+export function quotedList(words: readonly string[]): string {
+  return words.map((w) => `"${w}"`).join(', ');
+}

@@ -1,0 +1,357 @@
+// The near-wall family's worksheet entries: skin friction, boundary layer,
+// first-cell height and y+, the law of the wall, wall-layer stacks and the y+
+// report of a run. The maths lives in the sibling files as functions of SI
+// numbers; here arguments are read and results are given units and words.
+import { choiceArg, fluidArg, optionalSi, siArg, siListArg, stringArg } from '../shared/args.js';
+import type { Args, TradeFunction } from '../shared/registry.js';
+import { TradeError } from '../shared/trade-error.js';
+import { figure, list, num, record, shown, si, str, type Value } from '../shared/values.js';
+import { lengthText, numberText } from '../shared/words.js';
+import { boundaryLayer } from './boundary-layer.js';
+import { bandOf, firstCell, PLACEMENTS, wallTreatment, yplusOf, type Placement } from './first-cell.js';
+import { histogramSvg } from './histogram-svg.js';
+import { B, frictionVelocity, KAPPA, spaldingUplus } from './law-of-wall.js';
+import { layersInside, solveStack, STACK_LIMITS, type Stack } from './layer-stack.js';
+import { readWallSamples } from './samples.js';
+import { skinFriction, SKIN_FRICTION_METHODS, type SkinFrictionMethod } from './skin-friction.js';
+import { stackSvg, type StackScale } from './stack-svg.js';
+import { correctedFirst, yplusStats } from './yplus-report.js';
+
+function methodArg(args: Args): SkinFrictionMethod {
+  return choiceArg(args, 'method', SKIN_FRICTION_METHODS);
+}
+
+function placementArg(args: Args): Placement {
+  return choiceArg(args, 'placement', PLACEMENTS);
+}
+
+const METHOD_PARAM = {
+  name: 'method',
+  type: 'string',
+  default: '"schlichting"',
+  choices: SKIN_FRICTION_METHODS,
+  doc: 'skin-friction correlation: blasius, schlichting, power, ittc1957 or white',
+} as const;
+
+const PLACEMENT_PARAM = {
+  name: 'placement',
+  type: 'string',
+  default: '"centroid"',
+  choices: PLACEMENTS,
+  doc: 'where y+ is measured: at the first cell centre (cell-centred solvers) or at its top',
+} as const;
+
+const FLUID = { name: 'fluid', type: 'fluid', doc: 'a fluid record with rho and mu (or nu), e.g. air(T: 20 degC)' } as const;
+const LOG_LAYER_TOP = 300;
+
+const skin_friction: TradeFunction = {
+  name: 'skin_friction',
+  params: [{ name: 'Re_x', type: 'quantity', unit: '1', doc: 'Reynolds number built on the distance from the leading edge' }, METHOD_PARAM],
+  doc: 'local skin-friction coefficient of a smooth flat plate (ittc1957 gives the mean coefficient)',
+  source:
+    'Blasius (1908) laminar; Schlichting, Boundary-Layer Theory 7th ed., footnote to Eq. 21.16 and Eq. 21.12 (one-seventh power law); ITTC 1957 line; White, Viscous Fluid Flow 3rd ed. ch. 6',
+  example: 'skin_friction(1e6, method: "schlichting")',
+  compute(args, ctx) {
+    const r = skinFriction(siArg(args, 'Re_x'), methodArg(args));
+    r.warnings.forEach((w) => ctx.warn(w));
+    return num(r.cf);
+  },
+};
+
+const boundary_layer: TradeFunction = {
+  name: 'boundary_layer',
+  params: [
+    { name: 'U', type: 'quantity', unit: 'm/s', doc: 'free-stream speed' },
+    { name: 'x', type: 'quantity', unit: 'm', doc: 'distance from the leading edge' },
+    FLUID,
+  ],
+  doc: 'flat-plate boundary layer at x: Re_x, thickness delta, displacement delta_star, momentum theta, regime',
+  source: 'Blasius (1908) laminar similarity solution (δ99 = 4.91 x/√Re_x); Prandtl one-seventh power law, Schlichting Eq. 21.8 (δ = 0.37 x Re_x^-1/5)',
+  example: 'boundary_layer(30 m/s, 4 m, air(T: 20 degC))',
+  compute(args) {
+    const { nu } = fluidArg(args);
+    const bl = boundaryLayer(siArg(args, 'U', 'm/s'), siArg(args, 'x', 'm'), nu);
+    const remark =
+      bl.regime === 'laminar'
+        ? 'Laminar (Re_x below 5e5): Blasius, δ99 = 4.91 x/√Re_x, δ* = 1.721 x/√Re_x, θ = 0.664 x/√Re_x.'
+        : 'Turbulent from the leading edge (Re_x at or above 5e5): one-seventh power law, δ = 0.37 x Re_x^-1/5, δ* = δ/8, θ = 7δ/72.';
+    return record(
+      [
+        ['Re_x', num(bl.Re_x), 'Reynolds number at x'],
+        ['delta', si(bl.delta, 'm'), 'boundary-layer thickness'],
+        ['delta_star', si(bl.delta_star, 'm'), 'displacement thickness'],
+        ['theta', si(bl.theta, 'm'), 'momentum thickness'],
+        ['regime', str(bl.regime), 'laminar below Re_x = 5e5'],
+      ],
+      { warnings: bl.warnings, remarks: [remark, 'Smooth flat plate at zero pressure gradient: on a body, an estimate of the wall layer, not its local value.'], tag: 'boundary layer' },
+    );
+  },
+};
+
+const first_cell: TradeFunction = {
+  name: 'first_cell',
+  params: [
+    { name: 'U', type: 'quantity', unit: 'm/s', doc: 'free-stream speed' },
+    { name: 'L', type: 'quantity', unit: 'm', doc: 'reference length (body length) for the Reynolds number' },
+    FLUID,
+    { name: 'yplus', type: 'quantity', unit: '1', default: '1', doc: 'target y+' },
+    METHOD_PARAM,
+    PLACEMENT_PARAM,
+  ],
+  doc: 'first-cell height for a target y+: Re, cf, tau_w, u_tau, l_visc, height, centroid, band',
+  source: 'τ_w = ½ρU²c_f, u_τ = √(τ_w/ρ), l_visc = ν/u_τ (Pope, Turbulent Flows, 2000, §7.1); c_f from skin_friction at Re_L',
+  example: 'first_cell(30 m/s, 4 m, air(T: 20 degC), yplus: 1)',
+  compute(args) {
+    const { rho, nu } = fluidArg(args);
+    const method = methodArg(args);
+    const placement = placementArg(args);
+    const target = siArg(args, 'yplus');
+    const c = firstCell(siArg(args, 'U', 'm/s'), siArg(args, 'L', 'm'), rho, nu, target, method, placement);
+    const warnings = [...c.warnings, ...bandWarnings(target)];
+    const remarks = [
+      `Targets the ${c.band}. ${wallTreatment(c.band)}`,
+      placement === 'centroid'
+        ? 'Target y+ met at the first cell centre (cell-centred solvers): height = 2 × y+ × l_visc.'
+        : 'Target y+ met at the first cell top: height = y+ × l_visc.',
+      `c_f by ${method} at Re built on L, the lowest along the body; near the nose τ_w is higher and so is y+, so check the run with yplus_report.`,
+    ];
+    return record(
+      [
+        ['Re', num(c.Re), 'Reynolds number on L'],
+        ['cf', num(c.cf), 'skin-friction coefficient'],
+        ['tau_w', si(c.tau_w, 'Pa'), 'wall shear stress'],
+        ['u_tau', si(c.u_tau, 'm/s'), 'friction velocity'],
+        ['l_visc', si(c.l_visc, 'm'), 'viscous length ν/u_τ'],
+        ['height', si(c.height, 'm'), 'first-cell height'],
+        ['centroid', si(c.centroid, 'm'), 'first-cell centre above the wall'],
+        ['band', str(c.band), 'near-wall region targeted'],
+      ],
+      { warnings, remarks, tag: 'first cell' },
+    );
+  },
+};
+
+/** Flags for a target y+ outside the two bands wall treatments are built for (common practice). */
+function bandWarnings(yplus: number): string[] {
+  const band = bandOf(yplus);
+  if (band === 'buffer layer') {
+    return [`y+ ${numberText(yplus)} lies in the buffer layer (5–30, common practice), where neither wall functions nor wall resolution is sound.`];
+  }
+  if (band === 'outer layer') {
+    return [`y+ ${numberText(yplus)} lies beyond the log layer (above about ${LOG_LAYER_TOP}, common practice); wall functions lose their basis there.`];
+  }
+  return [];
+}
+
+const yplus: TradeFunction = {
+  name: 'yplus',
+  params: [
+    { name: 'height', type: 'quantity', unit: 'm', doc: 'first-cell height' },
+    { name: 'U', type: 'quantity', unit: 'm/s', doc: 'free-stream speed' },
+    { name: 'L', type: 'quantity', unit: 'm', doc: 'reference length for the Reynolds number' },
+    FLUID,
+    PLACEMENT_PARAM,
+    METHOD_PARAM,
+  ],
+  doc: 'the y+ a first-cell height reaches (the inverse of first_cell)',
+  source: 'y+ = y u_τ/ν with u_τ from τ_w = ½ρU²c_f (Pope, Turbulent Flows, 2000, §7.1); c_f from skin_friction at Re_L',
+  example: 'yplus(40 um, 30 m/s, 4 m, air(T: 20 degC))',
+  compute(args, ctx) {
+    const { rho, nu } = fluidArg(args);
+    const r = yplusOf(siArg(args, 'height', 'm'), siArg(args, 'U', 'm/s'), siArg(args, 'L', 'm'), rho, nu, methodArg(args), placementArg(args));
+    [...r.warnings, ...bandWarnings(r.yplus)].forEach((w) => ctx.warn(w));
+    return num(r.yplus);
+  },
+};
+
+const law_of_wall: TradeFunction = {
+  name: 'law_of_wall',
+  params: [{ name: 'yplus', type: 'quantity', unit: '1', doc: 'wall distance in wall units' }],
+  doc: `u+ at a given y+ by Spalding's single formula (κ = ${KAPPA}, B = ${B})`,
+  source: `Spalding (1961), "A single formula for the law of the wall", J. Appl. Mech. 28(3); κ = ${KAPPA}, B = ${B} (Coles & Hirst 1968)`,
+  example: 'law_of_wall(30)',
+  compute(args, ctx) {
+    const y = siArg(args, 'yplus');
+    if (y > LOG_LAYER_TOP) ctx.warn(`y+ ${numberText(y)} is beyond the log layer (about ${LOG_LAYER_TOP}, common practice); the outer (wake) region departs from the law of the wall.`);
+    return num(spaldingUplus(y));
+  },
+};
+
+const friction_velocity: TradeFunction = {
+  name: 'friction_velocity',
+  params: [
+    { name: 'U_p', type: 'quantity', unit: 'm/s', doc: 'velocity sampled parallel to the wall' },
+    { name: 'y_p', type: 'quantity', unit: 'm', doc: 'distance of the sample from the wall' },
+    FLUID,
+  ],
+  doc: "friction velocity u_τ that puts a velocity sample on Spalding's law of the wall",
+  source: `Spalding (1961), "A single formula for the law of the wall", J. Appl. Mech. 28(3), solved for u_τ; κ = ${KAPPA}, B = ${B} (Coles & Hirst 1968)`,
+  example: 'friction_velocity(12 m/s, 2 mm, air(T: 20 degC))',
+  compute(args, ctx) {
+    const { nu } = fluidArg(args);
+    const r = frictionVelocity(siArg(args, 'U_p', 'm/s'), siArg(args, 'y_p', 'm'), nu);
+    if (r.yplus > LOG_LAYER_TOP) ctx.warn(`the sample sits at y+ ${numberText(r.yplus)}, beyond the log layer (about ${LOG_LAYER_TOP}, common practice); u_τ is an estimate.`);
+    return si(r.u_tau, 'm/s');
+  },
+};
+
+
+const SCALES: readonly StackScale[] = ['linear', 'log'];
+
+const layer_stack: TradeFunction = {
+  name: 'layer_stack',
+  params: [
+    { name: 'first', type: 'quantity', unit: 'm', optional: true, doc: 'first-layer height at the wall' },
+    { name: 'growth', type: 'quantity', unit: '1', optional: true, doc: 'growth ratio between neighbouring layers' },
+    { name: 'count', type: 'quantity', unit: '1', optional: true, doc: 'number of layers' },
+    { name: 'total', type: 'quantity', unit: 'm', optional: true, doc: 'total stack thickness' },
+    { name: 'core', type: 'quantity', unit: 'm', optional: true, doc: 'size of the core cell next to the stack' },
+    { name: 'delta', type: 'quantity', unit: 'm', optional: true, doc: 'boundary-layer thickness' },
+    { name: 'scale', type: 'string', default: '"linear"', choices: SCALES, doc: 'axis of the picture: linear or log' },
+  ],
+  doc: 'wall-layer stack from any three of first, growth, count, total: first, growth, count, total, last, heights (+ jump, inside, coverage)',
+  source: 'geometric series: total = first (growth^count − 1)/(growth − 1), last = first growth^(count−1); growth by bracketed bisection',
+  example: 'layer_stack(first: 20 um, growth: 1.2, total: 30 mm, delta: 60 mm)',
+  compute(args) {
+    const given = {
+      first: optionalSi(args, 'first', 'm'),
+      growth: optionalSi(args, 'growth'),
+      count: optionalSi(args, 'count'),
+      total: optionalSi(args, 'total', 'm'),
+    };
+    const core = optionalSi(args, 'core', 'm');
+    const delta = optionalSi(args, 'delta', 'm');
+    for (const [k, v] of [['core', core], ['delta', delta]] as const) {
+      if (v !== undefined && !(v > 0)) throw new TradeError(`${k} must be a positive length`);
+    }
+    const scale = choiceArg(args, 'scale', SCALES);
+    const s = solveStack(given);
+    const fields: Array<[string, Value, string?]> = [
+      ['first', si(s.first, 'm'), 'first-layer height'],
+      ['growth', num(s.growth), 'growth ratio'],
+      ['count', num(s.count), 'number of layers'],
+      ['total', si(s.total, 'm'), 'stack thickness'],
+      ['last', si(s.last, 'm'), 'last (outermost) layer height'],
+      ['heights', list(s.heights.map((h) => si(h, 'm'))), 'layer heights from the wall out'],
+    ];
+    const inside = delta === undefined ? undefined : layersInside(s.heights, delta);
+    if (core !== undefined) fields.push(['jump', num(core / s.last), 'core cell / last layer']);
+    if (delta !== undefined) {
+      fields.push(['inside', num(inside!), 'layers inside the boundary layer']);
+      fields.push(['coverage', num(s.total / delta), 'stack thickness / δ']);
+    }
+    return record(fields, {
+      warnings: stackWarnings(s, core, delta, inside),
+      remarks: stackRemarks(s, delta),
+      figure: figure(stackSvg({ heights: s.heights, growth: s.growth, scale, ...(delta === undefined ? {} : { delta }), ...(core === undefined ? {} : { core }) }), `Wall-layer stack to scale (${scale} axis)`),
+      tag: 'layer stack',
+    });
+  },
+};
+
+/** Rules of thumb (common practice): gentle growth, a small jump to the core, ten or more cells across δ. */
+function stackWarnings(s: Stack, core: number | undefined, delta: number | undefined, inside: number | undefined): string[] {
+  const w: string[] = [];
+  if (s.growth > STACK_LIMITS.growth) w.push(`growth ratio ${numberText(s.growth)} is above about ${STACK_LIMITS.growth} (common practice); neighbouring layers differ too much in size.`);
+  if (s.growth < 1) w.push(`growth ratio ${numberText(s.growth)} is below 1: the layers get thinner away from the wall.`);
+  if (core !== undefined && core / s.last > STACK_LIMITS.jump) {
+    w.push(`the core cell is ${numberText(core / s.last)} × the last layer, above about ${STACK_LIMITS.jump} (common practice); add layers or shrink the core cells near the wall.`);
+  }
+  if (delta !== undefined && inside !== undefined) {
+    // Core cells above the stack also lie across δ when the stack is thinner than δ.
+    const across = inside + (core !== undefined && s.total < delta ? (delta - s.total) / core : 0);
+    if (across < STACK_LIMITS.cellsAcross) {
+      w.push(`only about ${Math.floor(across)} cells lie across the boundary layer (δ = ${lengthText(delta)}); about ${STACK_LIMITS.cellsAcross} or more are usual (common practice).`);
+    }
+  }
+  return w;
+}
+
+function stackRemarks(s: Stack, delta: number | undefined): string[] {
+  const r = [`Solved for ${s.solved}.`];
+  if (s.solved === 'count' && s.askedTotal !== undefined && Math.abs(s.total - s.askedTotal) > 1e-9 * s.askedTotal) {
+    r.push(`The count is rounded up to whole layers, so the stack is ${lengthText(s.total)} thick rather than the ${lengthText(s.askedTotal)} asked for.`);
+  }
+  if (delta !== undefined) {
+    r.push(
+      s.total < delta
+        ? `The stack covers ${numberText((100 * s.total) / delta)} % of δ; the rest of the boundary layer lies in the core mesh.`
+        : `The stack reaches past the boundary-layer edge (${numberText((100 * s.total) / delta)} % of δ).`,
+    );
+  }
+  return r;
+}
+
+/** Share of the wall a run should have inside its band (common practice: most of it). */
+const IN_BAND_AIM = 0.9;
+
+const yplus_report: TradeFunction = {
+  name: 'yplus_report',
+  params: [
+    { name: 'path', type: 'string', doc: 'CSV of wall samples, relative to the project folder (header row; comma, semicolon or tab)' },
+    { name: 'column', type: 'string', default: '"yplus"', doc: 'column holding y+' },
+    { name: 'weight', type: 'string', default: '"area"', doc: 'column of face weights (area); used when present, "none" for equal weights' },
+    { name: 'target', type: 'quantity', unit: '1', default: '1', doc: 'the y+ the mesh aims at' },
+    { name: 'band', type: 'list', unit: '1', default: '[0.5, 5]', doc: 'accepted y+ range [low, high]' },
+    { name: 'first', type: 'quantity', unit: 'm', optional: true, doc: 'first-layer height of the run, for corrected_first' },
+  ],
+  doc: 'y+ statistics of a run: count, min, max, mean, weighted_mean, p05, p50, p95, in_band, corrected_first',
+  source: 'area-weighted mean and share; percentiles by Hyndman & Fan (1996) definition 7; corrected_first = first × target / weighted mean',
+  example: 'yplus_report("data/van-yplus.csv", first: 40 um)',
+  compute(args, ctx) {
+    const path = stringArg(args, 'path');
+    const column = stringArg(args, 'column');
+    const weightName = stringArg(args, 'weight');
+    const target = siArg(args, 'target');
+    const bandList = siListArg(args, 'band');
+    if (bandList.length !== 2 || !(bandList[0]! < bandList[1]!)) throw new TradeError('band must be a list of two numbers, low then high, e.g. [0.5, 5]');
+    if (!(target > 0)) throw new TradeError('target must be a positive y+');
+    const band: [number, number] = [bandList[0]!, bandList[1]!];
+    const first = optionalSi(args, 'first', 'm');
+    if (first !== undefined && !(first > 0)) throw new TradeError('first must be a positive length');
+
+    const weight = weightName === '' || weightName.toLowerCase() === 'none' ? undefined : weightName;
+    const samples = readWallSamples(ctx.readData(path), column, weight);
+    const st = yplusStats(samples.values, samples.weights, band);
+    const fields: Array<[string, Value, string?]> = [
+      ['count', num(st.count), 'wall faces'],
+      ['min', num(st.min), 'lowest y+'],
+      ['max', num(st.max), 'highest y+'],
+      ['mean', num(st.mean), 'mean over faces'],
+      ['weighted_mean', num(st.weighted_mean), samples.weighted ? `mean weighted by ${weight}` : 'no weight column: same as mean'],
+      ['p05', num(st.p05), '5th percentile'],
+      ['p50', num(st.p50), 'median'],
+      ['p95', num(st.p95), '95th percentile'],
+      ['in_band', shown(st.in_band * 100, '%'), `share within ${numberText(band[0])}–${numberText(band[1])}`],
+    ];
+    if (first !== undefined) fields.push(['corrected_first', si(correctedFirst(first, target, st.weighted_mean), 'm'), 'next first-layer height']);
+
+    const share = samples.weighted ? 'of the wall area' : 'of the faces';
+    const warnings: string[] = [];
+    if (st.in_band < IN_BAND_AIM) {
+      warnings.push(`only ${numberText(st.in_band * 100)} % ${share} has y+ inside ${numberText(band[0])}–${numberText(band[1])}; most of the wall, about ${IN_BAND_AIM * 100} % or more, is usual (common practice).`);
+    }
+    const aim = bandOf(target);
+    const seen = bandOf(st.weighted_mean);
+    if (seen !== aim) warnings.push(`the mean y+ ${numberText(st.weighted_mean)} lies in the ${seen}, not in the ${aim} the target ${numberText(target)} aims at.`);
+
+    const remarks = [
+      `Target y+ ${numberText(target)}: ${aim}. ${wallTreatment(aim)}`,
+      `p05, p50 and p95 count faces (Hyndman & Fan 1996, definition 7); weighted_mean and in_band weigh each face${samples.weighted ? ` by ${weight}` : ''}.`,
+    ];
+    if (weight && !samples.weighted) remarks.push(`The file has no column ${weight}, so every face counts equally.`);
+    remarks.push(
+      first === undefined
+        ? 'Pass first: (the first-layer height of this run) to get corrected_first.'
+        : 'corrected_first = first × target / weighted_mean; meeting a y+ target is iterative, so re-run and report again.',
+    );
+    return record(fields, {
+      warnings,
+      remarks,
+      figure: figure(histogramSvg({ values: samples.values, weights: samples.weights, weighted: samples.weighted, band, target }), `y+ histogram from ${path}`),
+      tag: 'y+ report',
+    });
+  },
+};
+
+export const wallEntries: TradeFunction[] = [skin_friction, boundary_layer, first_cell, yplus, law_of_wall, friction_velocity, layer_stack, yplus_report];
