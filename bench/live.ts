@@ -13,9 +13,9 @@ import { marked } from 'marked';
 import { chromium } from 'playwright-core';
 // The compiled server, as `npm start` runs it: from the TypeScript sources the
 // sandbox child would run under a loader that slows hot code down.
-import { Sandbox } from '../dist/server/evaluate/sandbox.js';
-import { startServer, type SheetRenderer } from '../dist/server/serve/index.js';
-import type { RenderOptions, SheetResult } from '../dist/server/sheet-types.js';
+import { Sandbox } from '../dist/server/sandbox/sandbox.js';
+import { startServer, type SheetRunner } from '../dist/server/serve/index.js';
+import type { RunOptions, SheetResult } from '../dist/server/pipeline/index.js';
 import { demoSheet, generatedSheet, type BenchSheet } from './sheets.js';
 import { fmt, summarise, type Summary } from './stats.js';
 
@@ -78,13 +78,13 @@ async function evaluationCost(sheet: BenchSheet) {
   const oneInput: number[] = [];
   let formulas: string[] = [];
   try {
-    await sandbox.render(sheet.text(sheet.base), { path: path.join(ROOT, 'bench', 'warm-up.md'), root: ROOT });
+    await sandbox.run(sheet.text(sheet.base), { path: path.join(ROOT, 'bench', 'warm-up.md'), root: ROOT });
     for (let run = 0; run < 5; run++) {
       const opts = { path: path.join(ROOT, 'bench', `full-${run}.md`), root: ROOT };
-      const first = await sandbox.render(sheet.text(sheet.base), opts);
+      const first = await sandbox.run(sheet.text(sheet.base), opts);
       full.push(first.elapsedMs);
       if (run === 0) formulas = texOf(first.parts.map((p) => p.html).join(''));
-      for (let i = 1; i <= 4; i++) oneInput.push((await sandbox.render(sheet.text(sheet.base + run + i / 10), opts)).elapsedMs);
+      for (let i = 1; i <= 4; i++) oneInput.push((await sandbox.run(sheet.text(sheet.base + run + i / 10), opts)).elapsedMs);
     }
   } finally {
     await sandbox.close();
@@ -111,12 +111,12 @@ function floorCost(sheet: BenchSheet, formulas: string[]): Summary {
 }
 
 /** The sandbox, noting when each evaluation starts and ends (epoch ms, like the page's clock). */
-class TimedSandbox implements SheetRenderer {
+class TimedSandbox implements SheetRunner {
   private readonly inner = new Sandbox({ timeoutMs: BENCH_TIMEOUT_MS });
   last = { start: 0, end: 0, engine: 0 };
-  async render(text: string, opts: RenderOptions): Promise<SheetResult> {
+  async run(text: string, opts: RunOptions): Promise<SheetResult> {
     const start = performance.timeOrigin + performance.now();
-    const result = await this.inner.render(text, opts);
+    const result = await this.inner.run(text, opts);
     this.last = { start, end: performance.timeOrigin + performance.now(), engine: result.elapsedMs };
     return result;
   }
@@ -129,8 +129,8 @@ async function saveToPage(sheet: BenchSheet) {
   const dir = await mkdtemp(path.join(tmpdir(), 'wakesheet-bench-'));
   const file = path.join(dir, 'sheet.md');
   await writeFile(file, sheet.text(sheet.base));
-  const renderer = new TimedSandbox();
-  const server = await startServer({ dir, port: 0, renderer });
+  const runner = new TimedSandbox();
+  const server = await startServer({ dir, port: 0, runner });
   const profile = await mkdtemp(path.join(tmpdir(), 'wakesheet-bench-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: CHROMIUM,
@@ -162,16 +162,16 @@ async function saveToPage(sheet: BenchSheet) {
       const { dom, painted } = (await page.evaluate('window.benchSeen')) as { dom: number; painted: number };
       toDom.push(dom - t0);
       toPaint.push(painted - t0);
-      toEvalStart.push(renderer.last.start - t0);
-      evalRoundTrip.push(renderer.last.end - renderer.last.start);
-      engine.push(renderer.last.engine);
-      evalToDom.push(dom - renderer.last.end);
+      toEvalStart.push(runner.last.start - t0);
+      evalRoundTrip.push(runner.last.end - runner.last.start);
+      engine.push(runner.last.engine);
+      evalToDom.push(dom - runner.last.end);
       await new Promise((r) => setTimeout(r, 150)); // let the watcher's second look pass
     }
   } finally {
     await context.close();
     await server.close();
-    await renderer.close(); // the server closes only a renderer it made itself
+    await runner.close(); // the server closes only a runner it made itself
     await rm(profile, { recursive: true, force: true });
     await rm(dir, { recursive: true, force: true });
   }

@@ -1,6 +1,13 @@
 // Errors are values with a place and plain words. The codes are listed here,
 // in one place, and documented in worksheets/guide/language.md.
-import type { Span } from './parse/ast.js';
+
+/** A place in a worksheet file: 1-based line, 1-based columns. */
+export interface Span {
+  readonly line: number;
+  readonly col: number;
+  /** Column just past the node. */
+  readonly end: number;
+}
 
 export const ERROR_CODES = {
   syntax: 'the line cannot be read as a statement',

@@ -2,16 +2,11 @@
 import { createIndexView } from './index-view.js';
 import { openLink } from './link.js';
 import { createSheetView } from './sheet-view.js';
-import { createStatus, localTime } from './status.js';
+import { createStatus, localiseTimes } from './status.js';
 
 const status = createStatus(document.querySelector('.live-status'));
 status.connecting();
-
-// Server-rendered times are ISO strings; show them in the reader's time zone.
-for (const time of document.querySelectorAll('time[datetime]')) {
-  const shown = localTime(time.getAttribute('datetime'));
-  if (shown) time.textContent = shown;
-}
+localiseTimes(document);
 
 const isSheet = document.body.classList.contains('live-sheet-page');
 const link = openLink({
@@ -19,20 +14,20 @@ const link = openLink({
     status.live();
     view.follow();
   },
-  onMessage: (message) => {
+  onMessage: (/** @type {import('../server/serve/protocol.js').ServerMessage} */ message) => {
     view.receive(message);
     if (!isSheet) status.live(new Date().toISOString());
   },
   onDown: (retryInMs) => status.offline(retryInMs),
 });
-const send = (message) => link.send(message);
+const send = (/** @type {import('../server/serve/protocol.js').ClientMessage} */ message) => link.send(message);
 const view = isSheet ? createSheetView(status, send) : createIndexView(send);
 
 // A printed record shows everything: open every <details> while printing.
 /** @type {HTMLDetailsElement[]} */
 let openedForPrint = [];
 window.addEventListener('beforeprint', () => {
-  openedForPrint = [...document.querySelectorAll('details:not([open])')];
+  openedForPrint = [...document.querySelectorAll('details:not([open])')].filter((d) => d instanceof HTMLDetailsElement);
   for (const d of openedForPrint) d.open = true;
 });
 window.addEventListener('afterprint', () => {

@@ -4,29 +4,25 @@
 // sequence has the fingerprint the server computed, and every text to change
 // still reads what the server says it did.
 
-/**
- * @typedef {{from: string, shape: string,
- *            texts: [number, string, string][],
- *            attrs: [number, string, string, string | null][]}} PartEdits
- */
+/** @typedef {import('../server/serve/html-edits.js').PartEdits} PartEdits */
 
 /**
  * @typedef {{shape: string, elements: Element[], texts: Text[]}} PartNodes
  * A part's nodes in document order, kept between updates: edits change text
  * and attributes only, so the list stays true until the part is replaced
  * (forgetNodes), and the next update need not walk the part again.
- * @type {WeakMap<HTMLElement, PartNodes>}
+ * @type {WeakMap<Element, PartNodes>}
  */
 const known = new WeakMap();
 
 /** Call whenever a part's nodes are added, removed or replaced. */
-export function forgetNodes(/** @type {HTMLElement} */ part) {
+export function forgetNodes(/** @type {Element} */ part) {
   known.delete(part);
 }
 
 /**
  * Checks the edits against the part and returns a function that applies
- * them, or null when they do not fit (then the page asks for the full frame).
+ * them, or null when they do not fit (then the page asks for a complete update).
  * @param {HTMLElement} part
  * @param {PartEdits} edits
  * @returns {(() => void) | null}

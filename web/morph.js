@@ -43,7 +43,7 @@ function morphChildren(from, to) {
     const nextWanted = wanted.nextSibling;
     if (keys) cursor = dropUnwanted(from, cursor, keys);
     const key = keys ? keyOf(wanted) : null;
-    let match = key ? keys.live.get(key) ?? null : cursor && !(keys && keyOf(cursor)) ? cursor : null;
+    let match = key && keys ? keys.live.get(key) ?? null : cursor && !(keys && keyOf(cursor)) ? cursor : null;
     if (match && !sameKind(match, wanted)) match = null;
     if (match) {
       if (key) keys?.live.delete(key);

@@ -9,6 +9,18 @@ export function localTime(iso) {
 }
 
 /**
+ * Server-rendered times are ISO strings in <time datetime>; show them in the
+ * reader's time zone.
+ * @param {ParentNode} root
+ */
+export function localiseTimes(root) {
+  for (const time of root.querySelectorAll('time[datetime]')) {
+    const shown = localTime(time.getAttribute('datetime'));
+    if (shown) time.textContent = shown;
+  }
+}
+
+/**
  * Most evaluations finish in a few tens of milliseconds: saying "evaluating"
  * for those only makes the bar flicker (and costs the browser frames while
  * the evaluator wants the processor). Say it once one has taken this long.

@@ -16,4 +16,5 @@ export { TradeError } from './shared/trade-error.js';
 export type { TradeFunction, ParamSpec, FieldSpec, CallContext, Args } from './shared/registry.js';
 export type * from './shared/values.js';
 export { escapeHtml } from './shared/escape.js';
-export { bool, describeValue, fieldRecord, figure, list, num, record, shown, si, str, table } from './shared/values.js';
+export { bool, describeValue, figure, list, num, record, shown, si, str, table } from './shared/values.js';
+export { fieldRecord } from './shared/records.js';

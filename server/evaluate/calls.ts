@@ -7,7 +7,7 @@ import { ANY_DIMENSION, describeValue, TradeError, type ListValue, type ParamSpe
 import { parseUnit, UnitError } from '../units/quantity.js';
 import { dimsEqual, isDimensionless } from '../units/dims.js';
 import { unitLabel } from '../units/labels.js';
-import type { Scope } from './interpreter.js';
+import type { Scope } from './scope.js';
 
 type CallExpr = Extract<Expr, { type: 'call' }>;
 

@@ -3,24 +3,13 @@
 // calls only through the trade-function registry.
 import { SheetError } from '../diagnostics.js';
 import type { Expr, Span } from '../parse/ast.js';
-import type { Registry, TradeFunction, CallContext } from '../core/index.js';
 import { describeValue, type RecordValue, type Value } from '../core/index.js';
 import { convert, quantity, UnitError, withUnit } from '../units/quantity.js';
 import { isDimensionless } from '../units/dims.js';
 import { arithmetic, bool, compareValues, truth, unaryMinus } from './ops.js';
 import { callTrade } from './calls.js';
 import type { Budget } from './limits.js';
-
-export interface Scope {
-  /** A sheet name's value; throws SheetError when it is unknown or failed. */
-  lookup(name: string, span: Span): Value;
-  readonly registry: Registry;
-  readonly budget: Budget;
-  /** Context handed to trade functions (data files, warnings). */
-  readonly context: CallContext;
-  /** Values of parameter defaults, parsed and evaluated once per registry. */
-  defaultOf(entry: TradeFunction, param: string): Value;
-}
+import type { Scope } from './scope.js';
 
 export function evaluate(e: Expr, scope: Scope): Value {
   scope.budget.spend(1, e.span);

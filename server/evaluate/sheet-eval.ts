@@ -1,14 +1,15 @@
 // Evaluates a sheet's statements in dependency order, reusing the previous
 // run's result for every statement whose text and inputs are unchanged.
 import { SheetError, type Diagnostic, diagnostic } from '../diagnostics.js';
-import type { Span, Statement } from '../parse/ast.js';
-import type { Registry, TradeFunction, CallContext } from '../core/index.js';
-import type { Value } from '../core/index.js';
-import { parseExpression } from '../parse/index.js';
-import { quantity } from '../units/quantity.js';
-import { evaluate, type Scope } from './interpreter.js';
+import type { Statement } from '../parse/ast.js';
+import type { CallContext, Registry, Value } from '../core/index.js';
+import { evaluate } from './interpreter.js';
 import { namesUsed, orderDefinitions, type NameUse } from './graph.js';
+import { evaluateInline, type InlineCacheEntry, type InlineExpr, type InlineResult } from './inline.js';
 import { Budget, DEFAULT_LIMITS, type Limits } from './limits.js';
+import { makeScope, sheetLookup } from './make-scope.js';
+import { sameItems } from './memo.js';
+import { CONSTANTS } from './scope.js';
 
 export interface StatementResult {
   readonly stmt: Statement;
@@ -35,6 +36,10 @@ export interface EvalOptions {
   cache?: EvalCache;
   /** Names whose definition line could not be parsed, with that line: their users are blocked. */
   failedNames?: ReadonlyMap<string, number>;
+  /** Inline `=expr` values of the prose, evaluated after the statements. */
+  inline?: readonly InlineExpr[];
+  /** Last good values of names that fail now: inline values fall back to them, marked stale. */
+  fallback?: ReadonlyMap<string, Value>;
 }
 
 interface CacheEntry {
@@ -52,10 +57,9 @@ export class EvalCache {
   readonly defaults = new Map<string, Value>();
   /** Dependency order of the last run's statements. */
   order?: { statements: readonly Statement[]; order: string[]; cycles: Map<string, string[]> };
+  /** Inline values of the last run, by line and text. */
+  inline = new Map<string, InlineCacheEntry>();
 }
-
-/** Names every sheet has unless it defines them itself. */
-export const CONSTANTS: ReadonlyMap<string, Value> = new Map([['pi', quantity(Math.PI)]]);
 
 export interface SheetEvaluation {
   results: StatementResult[];
@@ -64,6 +68,8 @@ export interface SheetEvaluation {
   reads: string[];
   /** Statements computed afresh in this run. */
   freshCount: number;
+  /** Inline values by key (line and text). */
+  inline: Map<string, InlineResult>;
 }
 
 export function evaluateSheet(statements: readonly Statement[], opts: EvalOptions): SheetEvaluation {
@@ -128,7 +134,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     const key = memoOf(r.stmt).key;
     used.add(key);
     const hit = cache.entries.get(key);
-    if (hit && sameInputs(hit.inputs, inputs) && readsUnchanged(hit.reads, opts.readData)) {
+    if (hit && sameItems(hit.inputs, inputs) && readsUnchanged(hit.reads, opts.readData)) {
       r.value = hit.value;
       if (hit.error) r.error = diagnostic(hit.error, r.stmt.line);
       r.warnings = hit.warnings;
@@ -136,7 +142,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       return;
     }
     const entry: CacheEntry = { inputs, warnings: [], reads: [] };
-    const scope = makeScope(opts, budget, values, cache, entry);
+    const scope = statementScope(opts, budget, values, cache, entry);
     try {
       entry.value = evaluate(r.stmt.expr, scope);
     } catch (e) {
@@ -175,10 +181,13 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   }
   // Forget statements that left the sheet, so the cache follows the file.
   for (const key of cache.entries.keys()) if (!used.has(key)) cache.entries.delete(key);
-  return { results, values, reads: [...reads], freshCount };
+  // Only names the sheet still defines have a last good value to fall back to.
+  const fallback = (name: string) => (defs.has(name) || broken.has(name) ? opts.fallback?.get(name) : undefined);
+  const inline = evaluateInline(opts.inline ?? [], { registry: opts.registry, limits: opts.limits ?? DEFAULT_LIMITS, values, fallback, cache: cache.inline, defaults: cache.defaults });
+  return { results, values, reads: [...reads], freshCount, inline };
 }
 
-// Statements are immutable and reused across runs by the session's parse cache.
+// Statements are immutable and reused across runs by the pipeline's parse cache.
 const usesMemo = new WeakMap<Statement, { all: NameUse[]; names: string[]; key: string }>();
 
 function memoOf(s: Statement) {
@@ -214,9 +223,6 @@ function sameStructure(a: readonly Statement[], b: readonly Statement[]): boolea
   return true;
 }
 
-function sameInputs(a: Value[], b: Value[]): boolean {
-  return a.length === b.length && a.every((v, i) => v === b[i]);
-}
 
 function readsUnchanged(readsBefore: CacheEntry['reads'], readData?: (p: string) => string): boolean {
   if (readsBefore.length === 0) return true;
@@ -228,7 +234,7 @@ function readsUnchanged(readsBefore: CacheEntry['reads'], readData?: (p: string)
   }
 }
 
-function makeScope(opts: EvalOptions, budget: Budget, values: Map<string, Value>, cache: EvalCache, entry: CacheEntry): Scope {
+function statementScope(opts: EvalOptions, budget: Budget, values: Map<string, Value>, cache: EvalCache, entry: CacheEntry) {
   const context: CallContext = {
     readData(path) {
       if (!opts.readData) throw new SheetError('data-file', 'this sheet cannot read data files here');
@@ -240,24 +246,5 @@ function makeScope(opts: EvalOptions, budget: Budget, values: Map<string, Value>
       entry.warnings.push(message);
     },
   };
-  const scope: Scope = {
-    registry: opts.registry,
-    budget,
-    context,
-    lookup(name: string, span: Span): Value {
-      const v = values.get(name) ?? CONSTANTS.get(name);
-      if (!v) throw new SheetError('unknown-name', `\`${name}\` is not defined (line ${span.line})`, span);
-      return v;
-    },
-    defaultOf(fn: TradeFunction, param: string): Value {
-      const key = `${fn.name}.${param}`;
-      const hit = cache.defaults.get(key);
-      if (hit) return hit;
-      const spec = fn.params.find((p) => p.name === param)!;
-      const v = evaluate(parseExpression(spec.default!), { ...scope, lookup: () => { throw new Error(`default of ${key} uses a name`); } });
-      cache.defaults.set(key, v);
-      return v;
-    },
-  };
-  return scope;
+  return makeScope({ registry: opts.registry, budget, context, lookup: sheetLookup(values), defaults: cache.defaults });
 }

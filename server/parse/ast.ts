@@ -1,13 +1,9 @@
 // The statement and expression trees of a `basis` block. Every node carries
 // its place in the worksheet file (1-based line, 1-based columns).
+import type { Span } from '../diagnostics.js';
 import type { Unit } from '../units/unit-expr.js';
 
-export interface Span {
-  readonly line: number;
-  readonly col: number;
-  /** Column just past the node. */
-  readonly end: number;
-}
+export type { Span };
 
 export interface UnitNode {
   readonly unit: Unit;

@@ -1,2 +1,3 @@
 export { parseStatement, parseExpression } from './parser.js';
+export { parseLine, isStatement, type BrokenLine, type ParsedLine } from './line.js';
 export type { Expr, Statement, Span, Arg, UnitNode, BinaryOp, CompareOp } from './ast.js';

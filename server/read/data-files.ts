@@ -3,13 +3,9 @@
 import { readFileSync, realpathSync, statSync } from 'node:fs';
 import { isAbsolute, relative, resolve, sep } from 'node:path';
 import { SheetError } from '../diagnostics.js';
+import { isInside } from './paths.js';
 
 const MAX_BYTES = 16 * 1024 * 1024;
-
-function inside(root: string, target: string): boolean {
-  const rel = relative(root, target);
-  return rel === '' || (!rel.startsWith('..') && !isAbsolute(rel) && !rel.split(sep).includes('..'));
-}
 
 /**
  * Returns a reader for data files named relative to the sheet's folder and
@@ -23,14 +19,14 @@ export function dataReader(root: string, sheetDir: string): (relativePath: strin
       throw new SheetError('data-file', `"${relativePath}" is an absolute path; name data files relative to the sheet`);
     }
     const target = resolve(sheetDir, relativePath);
-    if (!inside(resolve(root), target)) throw new SheetError('data-file', `"${relativePath}" is outside the project folder`);
+    if (!isInside(resolve(root), target)) throw new SheetError('data-file', `"${relativePath}" is outside the project folder`);
     let real: string;
     try {
       real = realpathSync(target);
     } catch {
       throw new SheetError('data-file', `the data file "${relativePath}" does not exist`);
     }
-    if (!inside(realRoot, real)) throw new SheetError('data-file', `"${relativePath}" leads outside the project folder`);
+    if (!isInside(realRoot, real)) throw new SheetError('data-file', `"${relativePath}" leads outside the project folder`);
     const st = statSync(real);
     if (!st.isFile()) throw new SheetError('data-file', `"${relativePath}" is not a file`);
     if (st.size > MAX_BYTES) throw new SheetError('data-file', `"${relativePath}" is larger than ${MAX_BYTES / 1024 / 1024} MiB`);

@@ -2,23 +2,10 @@
 // inlined from the installed package (nothing fetched at run time), and
 // Wakesheet's own web/style.css.
 import { existsSync, readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { dirname, join, resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
+import { katexDistDir, packageRoot } from '../read/paths.js';
 
 let inlined: string | undefined;
-
-export function katexDistDir(): string {
-  const require = createRequire(import.meta.url);
-  return dirname(require.resolve('katex/dist/katex.min.css'));
-}
-
-/** The project root, from server/render or dist/server/render. */
-export function projectRoot(): string {
-  let dir = dirname(fileURLToPath(import.meta.url));
-  while (!existsSync(join(dir, 'package.json'))) dir = resolve(dir, '..');
-  return dir;
-}
 
 export function standaloneCss(): string {
   if (inlined !== undefined) return inlined;
@@ -27,7 +14,7 @@ export function standaloneCss(): string {
     /url\((fonts\/[^)]+?\.woff2)\)\s*format\("woff2"\)(,[^;}]*)?/g,
     (_, file: string) => `url(data:font/woff2;base64,${readFileSync(join(dist, file)).toString('base64')}) format("woff2")`,
   );
-  const own = join(projectRoot(), 'web', 'style.css');
+  const own = join(packageRoot(), 'web', 'style.css');
   inlined = katexCss + '\n' + (existsSync(own) ? readFileSync(own, 'utf8') : '');
   return inlined;
 }

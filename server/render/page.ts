@@ -1,7 +1,15 @@
-// The frame around a sheet: header with the front matter, the summary, the
+// The page around a sheet: header with the front matter, the summary, the
 // sheet's own content in one <main>, and the planning caution where due.
-import type { SheetPart, SheetSummary } from '../sheet-types.js';
 import { escapeHtml } from './html.js';
+import type { SheetPart } from './parts.js';
+
+export interface SheetSummary {
+  inputs: number;
+  results: number;
+  checksPassed: number;
+  checksFailed: number;
+  errors: number;
+}
 
 export interface SummaryItem {
   line: number;
@@ -24,6 +32,11 @@ export function headerHtml(title: string, meta: Record<string, string>): string 
   return `<header class="ws-header"><h1 class="ws-title">${escapeHtml(title)}</h1>${facts.length ? `<div class="ws-meta">${facts.join('')}</div>` : ''}</header>`;
 }
 
+/** The header above a sheet, with the planning caution when the sheet needs it. */
+export function sheetHeaderHtml(title: string, meta: Record<string, string>, caution: boolean): string {
+  return headerHtml(title, meta) + (caution ? cautionHtml() : '');
+}
+
 export const CAUTION =
   'Planning estimates only. Loads, pressures and anything structural must be designed to the local codes and checked by a licensed engineer.';
 
@@ -37,10 +50,10 @@ export function partsHtml(parts: SheetPart[]): string {
 
 export interface PageOptions {
   title: string;
-  meta: Record<string, string>;
+  /** The sheet's header with its caution (sheetHeaderHtml). */
+  headerHtml: string;
   summaryHtml: string;
   parts: SheetPart[];
-  caution: boolean;
   /** <head> content: styles or links. */
   head: string;
   /** Extra markup at the end of <body> (the live client's script tag). */
@@ -50,5 +63,5 @@ export interface PageOptions {
 export function pageHtml(o: PageOptions): string {
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${escapeHtml(o.title)}</title>${o.head}</head>
-<body class="ws-page">${headerHtml(o.title, o.meta)}${o.caution ? cautionHtml() : ''}${o.summaryHtml}<main class="ws-sheet">${partsHtml(o.parts)}</main><footer class="ws-footer">Rendered by Wakesheet ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC</footer>${o.tail ?? ''}</body></html>`;
+<body class="ws-page">${o.headerHtml}${o.summaryHtml}<main class="ws-sheet">${partsHtml(o.parts)}</main><footer class="ws-footer">Rendered by Wakesheet ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC</footer>${o.tail ?? ''}</body></html>`;
 }

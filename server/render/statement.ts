@@ -13,7 +13,7 @@ export interface StatementView {
   sig: number;
   /** Values by name, for substituting into formulas. */
   values: ReadonlyMap<string, Value>;
-  /** Last good values of names whose statements now fail (live sessions only). */
+  /** Last good values of names whose statements now fail (after earlier runs of the pipeline). */
   lastGood?: ReadonlyMap<string, Value>;
 }
 

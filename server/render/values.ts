@@ -1,11 +1,22 @@
 // A value as HTML (with machine-readable data-* attributes) and as JSON.
 import type { RecordValue, Value } from '../core/index.js';
-import type { ValueJson } from '../sheet-types.js';
 import { unitLabel } from '../units/labels.js';
 import { attrs, escapeHtml } from './html.js';
 import { mathHtml } from './katex.js';
 import { showQuantity, shownLatex, shownPlain, unitPlain } from './numbers.js';
 import { fieldLatex } from './symbols.js';
+
+/** A value as `wakesheet eval --json` and the library hand it on. */
+export interface ValueJson {
+  /** SI value; null for text, booleans, records, figures. */
+  si: number | null;
+  /** SI unit text ("m/s", "Pa s", "" for plain numbers). */
+  unit: string;
+  /** As rendered, e.g. "23 µm". */
+  display: string;
+  fields?: Record<string, ValueJson>;
+  items?: ValueJson[];
+}
 
 export function displayText(v: Value, sig: number): string {
   switch (v.kind) {

@@ -9,7 +9,7 @@
 // carry a fingerprint of the node sequence (`shape`). The page computes the
 // same fingerprint from its own DOM and refuses the edits when the two differ
 // (markup the browser's parser would restructure, such as a table without
-// <tbody>); it then asks for the complete frame instead.
+// <tbody>); it then asks for a complete update instead.
 
 /** Edits that turn the html with hash `from` into the part's new html. */
 export interface PartEdits {

@@ -2,13 +2,11 @@
 // client from web/, KaTeX's stylesheet and fonts from node_modules). Every
 // response carries the security headers; requests naming another host are
 // refused before any route runs.
-import { existsSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import express, { type NextFunction, type Request, type Response } from 'express';
 import { indexPage, sheetPage } from './pages.js';
 import { ALLOWED_METHODS, checkSheetPath, resolveSheetFile, SECURITY_HEADERS, SheetPathError, type HostPolicy } from './security.js';
+import { katexDistDir, packageRoot } from '../read/paths.js';
 import type { SheetStore } from './store.js';
 
 export interface AppContext {
@@ -22,22 +20,6 @@ export interface AppContext {
 /** How long a page request waits for a sheet's first evaluation. */
 const FIRST_EVALUATION_WAIT_MS = 10_000;
 const INDEX_WAIT_MS = 1500;
-
-/** The folder holding package.json, found from this module (works from dist/ too). */
-export function packageRoot(): string {
-  let dir = path.dirname(fileURLToPath(import.meta.url));
-  while (!existsSync(path.join(dir, 'package.json'))) {
-    const parent = path.dirname(dir);
-    if (parent === dir) throw new Error('package.json not found above ' + fileURLToPath(import.meta.url));
-    dir = parent;
-  }
-  return dir;
-}
-
-function katexDist(): string {
-  const require = createRequire(import.meta.url);
-  return path.join(path.dirname(require.resolve('katex/package.json')), 'dist');
-}
 
 export function createApp(context: AppContext): express.Express {
   const app = express();
@@ -69,7 +51,7 @@ export function createApp(context: AppContext): express.Express {
     void serveSheet(context, req, res).catch(next);
   });
 
-  const katex = katexDist();
+  const katex = katexDistDir();
   app.use('/assets/katex', (req, res, next) => {
     // Only the stylesheet and its fonts: the page never loads KaTeX's scripts.
     if (req.path === '/katex.min.css' || /^\/fonts\/[\w.-]+\.(woff2?|ttf)$/.test(req.path)) next();
@@ -124,12 +106,12 @@ async function serveSheet(context: AppContext, req: Request, res: Response): Pro
     }
   }
   await Promise.race([store.whenEvaluated(sheet), delay(FIRST_EVALUATION_WAIT_MS)]);
-  const frame = store.frame(sheet);
-  if (!frame) {
+  const update = store.complete(sheet);
+  if (!update) {
     notFound();
     return;
   }
-  res.type('html').set('Cache-Control', 'no-store').send(sheetPage(frame));
+  res.type('html').set('Cache-Control', 'no-store').send(sheetPage(update));
 }
 
 function delay(ms: number): Promise<void> {

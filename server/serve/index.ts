@@ -3,11 +3,11 @@
 import { createServer, type Server } from 'node:http';
 import { realpath, stat } from 'node:fs/promises';
 import path from 'node:path';
-import { Sandbox } from '../evaluate/sandbox.js';
+import { Sandbox } from '../sandbox/sandbox.js';
 import { createApp } from './http.js';
 import { LiveHub, type LiveOptions } from './live.js';
 import { HostPolicy, hostForUrl, isLoopbackHost, isWildcardHost } from './security.js';
-import { SheetStore, type SheetRenderer } from './store.js';
+import { SheetStore, type SheetRunner } from './store.js';
 import { FolderWatcher, type FolderWatcherOptions } from './watch.js';
 
 export interface ServeOptions {
@@ -17,8 +17,8 @@ export interface ServeOptions {
   port?: number;
   /** Defaults to 127.0.0.1; anything that is not loopback gets a warning. */
   host?: string;
-  /** Evaluates sheets; defaults to a Sandbox owned (and closed) by the server. */
-  renderer?: SheetRenderer;
+  /** Runs sheets; defaults to a Sandbox owned (and closed) by the server. */
+  runner?: SheetRunner;
   live?: LiveOptions;
   watch?: Pick<FolderWatcherOptions, 'debounceMs' | 'settleMs' | 'removeGraceMs'>;
   /** Where warnings go (default: stderr). */
@@ -43,10 +43,10 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
   const root = await realpath(path.resolve(options.dir));
   if (!(await stat(root)).isDirectory()) throw new Error(`not a folder: ${options.dir}`);
 
-  const ownsRenderer = options.renderer === undefined;
-  const renderer = options.renderer ?? new Sandbox({ timeoutMs: 2000 });
-  void renderer.warm?.().catch(() => {}); // a failing start shows up at the first sheet
-  const store = new SheetStore(root, renderer);
+  const ownsRunner = options.runner === undefined;
+  const runner = options.runner ?? new Sandbox({ timeoutMs: 2000 });
+  void runner.warm?.().catch(() => {}); // a failing start shows up at the first sheet
+  const store = new SheetStore(root, runner);
   const watcher = await FolderWatcher.start(root, {
     ...options.watch,
     onEvent: (event) => store.handle(event),
@@ -66,7 +66,7 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
     await hub.close();
     await watcher.close();
     await store.close();
-    if (ownsRenderer) await renderer.close();
+    if (ownsRunner) await runner.close();
     throw error;
   }
   policy = new HostPolicy(host, port);
@@ -92,7 +92,7 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
         await new Promise<void>((resolve) => server.close(() => resolve()));
         await watcher.close();
         await store.close();
-        if (ownsRenderer) await renderer.close();
+        if (ownsRunner) await runner.close();
       })()),
   };
 }
@@ -109,4 +109,4 @@ function listen(server: Server, port: number, host: string): Promise<number> {
   });
 }
 
-export type { SheetRenderer } from './store.js';
+export type { SheetRunner } from './store.js';

@@ -1,11 +1,11 @@
 // The WebSocket side: who follows which sheet, what to send them, and a
 // heartbeat that drops connections that stopped answering. Each client gets a
-// complete frame when it starts following (so a reconnect re-syncs), then
-// patches that carry only the parts whose html changed.
+// complete update when it starts following (so a reconnect re-syncs), then
+// relative updates that carry only the parts whose html changed.
 import type { IncomingMessage } from 'node:http';
 import type { Duplex } from 'node:stream';
 import { WebSocket, WebSocketServer } from 'ws';
-import { MAX_CLIENT_MESSAGE_BYTES, parseClientMessage, type ServerMessage, type SheetFrameMessage } from './protocol.js';
+import { MAX_CLIENT_MESSAGE_BYTES, parseClientMessage, type ServerMessage, type SheetUpdate } from './protocol.js';
 import type { HostPolicy } from './security.js';
 import type { SheetStore } from './store.js';
 
@@ -42,7 +42,7 @@ export class LiveHub {
     this.wss = new WebSocketServer({ noServer: true, maxPayload: MAX_CLIENT_MESSAGE_BYTES, perMessageDeflate: false });
     this.heartbeat = setInterval(() => this.beat(), this.options.heartbeatMs);
     this.heartbeat.unref();
-    store.on('sheet', (delta) => this.sendDelta(delta));
+    store.on('sheet', (update) => this.sendUpdate(update));
     store.on('busy', (sheet) => this.sendToFollowers(sheet, { type: 'busy', sheet }));
     store.on('index', () => this.scheduleIndex());
     store.isFollowed = (sheet) => this.isFollowed(sheet);
@@ -84,13 +84,13 @@ export class LiveHub {
       if (!msg) return socket.close(1008, 'unexpected message');
       if (msg.target === 'index') {
         client.follows = { target: 'index' };
-        this.send(client, { type: 'index', sheets: this.store.index() });
+        this.send(client, this.store.indexMessage());
         return;
       }
-      const frame = this.store.frame(msg.sheet);
-      if (!frame) return socket.close(1008, 'no such sheet');
-      client.follows = { target: 'sheet', sheet: msg.sheet, version: frame.version };
-      this.send(client, frame);
+      const update = this.store.complete(msg.sheet);
+      if (!update) return socket.close(1008, 'no such sheet');
+      client.follows = { target: 'sheet', sheet: msg.sheet, version: update.version };
+      this.send(client, update);
     });
     socket.on('close', () => this.clients.delete(client));
     socket.on('error', () => this.clients.delete(client));
@@ -101,15 +101,15 @@ export class LiveHub {
     return false;
   }
 
-  private sendDelta(delta: SheetFrameMessage): void {
-    let complete: SheetFrameMessage | null = null;
+  private sendUpdate(update: SheetUpdate): void {
+    let complete: SheetUpdate | null = null;
     for (const client of this.clients) {
       const follows = client.follows;
-      if (follows?.target !== 'sheet' || follows.sheet !== delta.sheet) continue;
-      // A client that missed a version (it joined mid-way) gets the whole frame.
-      const message = follows.version === delta.base ? delta : (complete ??= this.store.frame(delta.sheet));
+      if (follows?.target !== 'sheet' || follows.sheet !== update.sheet) continue;
+      // A client that missed a version (it joined mid-way) gets the complete update.
+      const message = follows.version === update.base ? update : (complete ??= this.store.complete(update.sheet));
       if (!message) continue;
-      follows.version = delta.version;
+      follows.version = update.version;
       this.send(client, message);
     }
   }
@@ -127,7 +127,7 @@ export class LiveHub {
       let json: string | null = null;
       for (const client of this.clients) {
         if (client.follows?.target !== 'index') continue;
-        json ??= JSON.stringify({ type: 'index', sheets: this.store.index() } satisfies ServerMessage);
+        json ??= JSON.stringify(this.store.indexMessage() satisfies ServerMessage);
         if (client.socket.readyState === WebSocket.OPEN) client.socket.send(json);
       }
     }, this.options.indexThrottleMs);

@@ -1,8 +1,11 @@
-// HTML shells of the two pages. The sheet's own markup comes from the engine
-// (already sanitised); everything that comes from the file system or the
-// front matter and lands here is escaped. Scripts load from /assets only.
+// HTML shells of the two pages, and every piece of text the live page shows
+// around a sheet (notice, footer, index rows): the page takes these from the
+// server's messages rather than computing them again. The sheet's own markup
+// comes from the engine (already sanitised); everything that comes from the
+// file system or the front matter and lands here is escaped. Scripts load
+// from /assets only.
 import { escapeHtml } from '../core/index.js';
-import type { IndexEntry, SheetCondition, SheetFrameMessage } from './protocol.js';
+import type { IndexEntry, SheetCondition, SheetUpdate } from './protocol.js';
 
 /** URL of a sheet's page, each path segment encoded. */
 export function sheetUrl(sheet: string): string {
@@ -30,45 +33,57 @@ function bar(crumb: string): string {
 </header>`;
 }
 
-/** The notice above a sheet: why what is shown may not be current. */
-export function noticeText(condition: SheetCondition): string | null {
+export interface NoticeFacts extends Pick<SheetCondition, 'movedTo' | 'gone' | 'failure' | 'stale'> {
+  path: string;
+  movedFrom: string | null;
+}
+
+/** The notice above a sheet: why what is shown may not be current, or that it was just renamed. */
+export function noticeText(condition: NoticeFacts): string | null {
   if (condition.movedTo) return `This sheet was renamed to ${condition.movedTo}.`;
   if (condition.gone) return 'This sheet was deleted. The content below is its last evaluation.';
   if (condition.failure && condition.stale) return `Showing the last good evaluation. ${condition.failure}`;
   if (condition.failure) return condition.failure;
+  if (condition.movedFrom) return `Renamed from ${condition.movedFrom} to ${condition.path}.`;
   return null;
 }
 
-export function sheetPage(frame: SheetFrameMessage): string {
-  const { condition } = frame;
-  const notice = noticeText(condition);
-  const parts = frame.parts
-    .map((p) => `<div class="ws-part live-part" data-key="${escapeHtml(p.key)}" data-hash="${escapeHtml(p.hash)}">${p.html ?? ''}</div>`)
-    .join('\n');
+/** The footer under a sheet: when it was evaluated and how long that took. */
+export function footHtml(evaluatedAt: string | null, elapsedMs: number | null): string {
+  if (!evaluatedAt) return 'Not evaluated yet.';
+  const ms = elapsedMs === null ? '' : ` in ${elapsedMs} ms`;
+  return `Evaluated ${timeHtml(evaluatedAt)}${ms}.`;
+}
+
+/** A time the page shows in the reader's own time zone (the ISO text until then). */
+function timeHtml(iso: string): string {
+  return `<time datetime="${escapeHtml(iso)}">${escapeHtml(iso)}</time>`;
+}
+
+export function partHtml(key: string, hash: string, html: string): string {
+  return `<div class="ws-part live-part" data-part="${escapeHtml(key)}" data-hash="${escapeHtml(hash)}">${html}</div>`;
+}
+
+export function sheetPage(update: SheetUpdate): string {
+  const { condition } = update;
+  const parts = update.parts.map((p) => partHtml(p.key, p.hash, p.html ?? '')).join('\n');
   const mainClass = condition.stale ? 'ws-sheet live-main ws-stale' : 'ws-sheet live-main';
-  return `${head(`${frame.title} · Wakesheet`)}
-<body class="ws-page live-sheet-page" data-sheet="${escapeHtml(frame.sheet)}" data-version="${frame.version}">
-${bar(`<span class="live-crumb">${escapeHtml(frame.sheet)}</span>`)}
-<div class="live-notice" role="alert"${notice ? '' : ' hidden'}>${notice ? escapeHtml(notice) : ''}</div>
-<div class="live-head">${frame.headerHtml ?? ''}</div>
-<div class="live-summary">${frame.summaryHtml ?? ''}</div>
+  return `${head(`${update.title} · Wakesheet`)}
+<body class="ws-page live-sheet-page" data-sheet="${escapeHtml(update.sheet)}" data-version="${update.version}">
+${bar(`<span class="live-crumb">${escapeHtml(update.sheet)}</span>`)}
+<div class="live-notice" role="alert"${condition.notice ? '' : ' hidden'}>${condition.notice ? escapeHtml(condition.notice) : ''}</div>
+<div class="live-head">${update.headerHtml ?? ''}</div>
+<div class="live-summary">${update.summaryHtml ?? ''}</div>
 <main class="${mainClass}">
 ${parts}
 </main>
-<footer class="live-foot">${footText(condition)}</footer>
+<footer class="live-foot">${condition.footHtml}</footer>
 </body>
 </html>
 `;
 }
 
-function footText(condition: SheetCondition): string {
-  if (!condition.evaluatedAt) return 'Not evaluated yet.';
-  const ms = condition.elapsedMs === null ? '' : ` in ${condition.elapsedMs} ms`;
-  return `Evaluated <time datetime="${escapeHtml(condition.evaluatedAt)}">${escapeHtml(condition.evaluatedAt)}</time>${ms}.`;
-}
-
 export function indexPage(folderName: string, entries: IndexEntry[]): string {
-  const rows = entries.map(indexRow).join('\n');
   return `${head(`${folderName} · Wakesheet`)}
 <body class="live-index-page">
 ${bar(`<span class="live-crumb">${escapeHtml(folderName)}</span>`)}
@@ -77,7 +92,7 @@ ${bar(`<span class="live-crumb">${escapeHtml(folderName)}</span>`)}
 <table class="live-sheets">
 <thead><tr><th>Sheet</th><th>Checks passed</th><th>Checks failed</th><th>Errors</th><th>Last evaluated</th></tr></thead>
 <tbody>
-${rows}
+${indexRowsHtml(entries)}
 </tbody>
 </table>
 <p class="live-empty"${entries.length ? ' hidden' : ''}>No .md sheets in this folder yet. Add one and it appears here.</p>
@@ -87,14 +102,16 @@ ${rows}
 `;
 }
 
+export function indexRowsHtml(entries: IndexEntry[]): string {
+  return entries.map(indexRow).join('\n');
+}
+
 function indexRow(entry: IndexEntry): string {
   const errorCount = entry.errors + (entry.failure ? 1 : 0);
   const num = (bad: boolean) => (bad ? 'live-num live-bad' : 'live-num');
-  const when = entry.evaluatedAt
-    ? `<time datetime="${escapeHtml(entry.evaluatedAt)}">${escapeHtml(entry.evaluatedAt)}</time>`
-    : escapeHtml(entry.state);
+  const when = entry.evaluatedAt ? timeHtml(entry.evaluatedAt) : escapeHtml(entry.state);
   return `<tr data-path="${escapeHtml(entry.path)}" data-state="${entry.state}">
-<td><a href="${escapeHtml(sheetUrl(entry.path))}">${escapeHtml(entry.title)}</a><span class="live-path">${escapeHtml(entry.path)}</span></td>
+<td><a href="${escapeHtml(entry.url)}">${escapeHtml(entry.title)}</a><span class="live-path">${escapeHtml(entry.path)}</span></td>
 <td class="live-num">${entry.checksPassed}</td><td class="${num(entry.checksFailed > 0)}">${entry.checksFailed}</td><td class="${num(errorCount > 0)}">${errorCount}</td>
 <td${entry.failure ? ` title="${escapeHtml(entry.failure)}"` : ''}>${when}</td></tr>`;
 }

@@ -1,10 +1,10 @@
 // Messages between the live server and the page, as JSON over one WebSocket
-// at /live. The browser client (web/*.js) mirrors these shapes by hand, so a
-// change here is a change there too.
+// at /live. The browser client (web/*.js) is type-checked against these
+// shapes through JSDoc imports of this file.
 import type { PartEdits } from './html-edits.js';
 
 /** One part of a sheet's <main>, identified by its key and content hash. */
-export interface PartFrame {
+export interface PartUpdate {
   key: string;
   /** Short hash of the html: the client replaces a part only when it differs. */
   hash: string;
@@ -27,22 +27,28 @@ export interface SheetCondition {
   /** ISO time of the last evaluation that produced the parts shown, if any. */
   evaluatedAt: string | null;
   elapsedMs: number | null;
+  /** The notice above the sheet saying why what is shown may not be current, or null. */
+  notice: string | null;
+  /** The footer's html (an evaluation time as <time datetime>, which the page shows in local time). */
+  footHtml: string;
 }
 
-/** Server → client: the state of one sheet, complete or relative to `base`. */
-export interface SheetFrameMessage {
+/**
+ * Server → client: an update of one sheet, complete or relative to `base`.
+ * A complete update carries every part with its html; a relative one only the
+ * parts that changed since `base` (html, or edits to the receiver's copy).
+ */
+export interface SheetUpdate {
   type: 'sheet';
   sheet: string;
+  /** URL of the sheet's page. */
+  url: string;
   version: number;
-  /** Version this frame patches; null when the frame is complete. */
+  /** Version this update applies to; null when it is complete. */
   base: number | null;
   title: string;
-  /**
-   * A complete frame: every part, with its html. A patch: only the parts that
-   * changed since `base` (html, or edits to the receiver's copy).
-   */
-  parts: PartFrame[];
-  /** Keys of all parts in page order: always in a complete frame; in a patch only when keys were added, removed or moved. */
+  parts: PartUpdate[];
+  /** Keys of all parts in page order: always in a complete update; in a relative one only when keys were added, removed or moved. */
   order: string[] | null;
   /** The sheet's header (title, front matter, caution); null when unchanged since `base`. */
   headerHtml: string | null;
@@ -62,6 +68,8 @@ export type SheetState = 'waiting' | 'evaluating' | 'ready' | 'failed';
 /** One row of the index page. */
 export interface IndexEntry {
   path: string;
+  /** URL of the sheet's page. */
+  url: string;
   title: string;
   state: SheetState;
   checksPassed: number;
@@ -76,11 +84,13 @@ export interface IndexEntry {
 export interface IndexMessage {
   type: 'index';
   sheets: IndexEntry[];
+  /** The index table's rows as the page shows them (one <tr> per sheet). */
+  rowsHtml: string;
 }
 
-export type ServerMessage = SheetFrameMessage | BusyMessage | IndexMessage;
+export type ServerMessage = SheetUpdate | BusyMessage | IndexMessage;
 
-/** Client → server: send me this sheet (complete now, patches afterwards). */
+/** Client → server: send me this sheet (complete now, relative updates afterwards). */
 export interface FollowSheetMessage {
   type: 'follow';
   target: 'sheet';

@@ -4,6 +4,7 @@ import { realpathSync } from 'node:fs';
 import { isIP } from 'node:net';
 import { hostname } from 'node:os';
 import path from 'node:path';
+import { isInside } from '../read/paths.js';
 
 /** Sheets and static files are fetched, never posted. */
 export const ALLOWED_METHODS = new Set(['GET', 'HEAD']);
@@ -132,12 +133,6 @@ export function checkSheetPath(relative: string): string {
   }
   if (!relative.endsWith('.md')) throw new SheetPathError('only .md sheets are served', 'not-a-sheet');
   return segments.join('/');
-}
-
-/** True when `target` is `folder` itself or lies inside it. */
-export function isInside(folder: string, target: string): boolean {
-  const rel = path.relative(folder, target);
-  return rel === '' || (!rel.startsWith('..') && !path.isAbsolute(rel));
 }
 
 /**

@@ -1,32 +1,28 @@
 // The server's memory of every sheet in the folder: the last good parts, their
 // hashes, a version that grows with every change the page must see, and the
 // sheet's condition (stale, failed, gone, moved). Evaluation goes through one
-// renderer (the sandbox), one sheet at a time, sheets someone is looking at
-// first. The store reads sheets; it never writes them.
-import { createHash } from 'node:crypto';
+// runner (the sandbox), one sheet at a time (queue.ts). The store reads
+// sheets; it never writes them.
 import { EventEmitter } from 'node:events';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { cautionHtml, headerHtml } from '../render/page.js';
-import type { RenderOptions, SheetResult } from '../sheet-types.js';
+import type { RunOptions, SheetReport } from '../pipeline/index.js';
+import { isSheetFile } from '../read/sheet-files.js';
 import { DependencyMap } from './deps.js';
-import { htmlEdits, type PartEdits } from './html-edits.js';
-import type { IndexEntry, PartFrame, SheetCondition, SheetFrameMessage, SheetState } from './protocol.js';
+import { footHtml, indexRowsHtml, noticeText, sheetUrl } from './pages.js';
+import type { IndexEntry, PartUpdate, SheetCondition, SheetState, SheetUpdate } from './protocol.js';
+import { EvaluationQueue } from './queue.js';
+import { renamedFrom, renamedTo } from './renames.js';
 import { resolveSheetFileSync, SheetPathError } from './security.js';
-import { isSheetFile, type FileEvent } from './watch.js';
+import { changeOfParts, type HashedPart } from './updates.js';
+import type { FileEvent } from './watch.js';
 
 /** What the store needs from the sandbox; tests may pass a stand-in. */
-export interface SheetRenderer {
-  render(text: string, opts: RenderOptions): Promise<SheetResult>;
+export interface SheetRunner {
+  run(text: string, opts: RunOptions): Promise<SheetReport>;
   close(): Promise<void>;
   /** Starts the evaluator ahead of the first sheet, where that helps. */
   warm?(): Promise<void>;
-}
-
-interface HashedPart {
-  key: string;
-  hash: string;
-  html: string;
 }
 
 interface SheetRecord {
@@ -37,12 +33,14 @@ interface SheetRecord {
   parts: HashedPart[];
   headerHtml: string;
   summaryHtml: string;
-  result: SheetResult | null;
+  result: SheetReport | null;
   failure: string | null;
   gone: boolean;
   goneAt: number;
   addedAt: number;
   movedTo: string | null;
+  /** This sheet is a renamed one, until its next evaluation: the old name. */
+  movedFrom: string | null;
   evaluatedAt: string | null;
   /** Text of the last evaluation, to recognise the same sheet after a rename. */
   lastText: string | null;
@@ -52,35 +50,32 @@ interface SheetRecord {
 }
 
 export interface StoreEvents {
-  /** A sheet's frame changed; `delta` patches the previous version. */
-  sheet: [delta: SheetFrameMessage];
+  /** A sheet changed; the update applies to the previous version. */
+  sheet: [update: SheetUpdate];
   busy: [sheet: string];
   index: [];
 }
 
-/** A rename shows up as a delete and an add of the same text within this time. */
-const MOVE_WINDOW_MS = 2000;
 /** How long an emptied sheet waits for the rest of its save before it is shown empty. */
 const EMPTY_RECHECK_MS = 25;
-
-export function hashHtml(html: string): string {
-  return createHash('sha1').update(html).digest('base64url').slice(0, 12);
-}
 
 export class SheetStore extends EventEmitter<StoreEvents> {
   readonly deps = new DependencyMap();
   private readonly records = new Map<string, SheetRecord>();
-  private readonly dirty = new Set<string>();
-  private running: Promise<void> | null = null;
+  private readonly queue: EvaluationQueue;
   private closed = false;
   /** Set by the live layer: sheets with a page open are evaluated first. */
   isFollowed: (sheet: string) => boolean = () => false;
 
   constructor(
     private readonly realRoot: string,
-    private readonly renderer: SheetRenderer,
+    private readonly runner: SheetRunner,
   ) {
     super();
+    this.queue = new EvaluationQueue(
+      (sheet) => this.evaluate(sheet),
+      (sheet) => this.isFollowed(sheet),
+    );
   }
 
   /** Registers the sheets found by the first scan and queues their evaluation. */
@@ -126,13 +121,14 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     return Promise.all([...this.records.keys()].map((sheet) => this.whenEvaluated(sheet))).then(() => undefined);
   }
 
-  /** The complete frame of a sheet, for a page that (re)connects. */
-  frame(sheet: string): SheetFrameMessage | null {
+  /** The complete update of a sheet, for a page that (re)connects. */
+  complete(sheet: string): SheetUpdate | null {
     const record = this.records.get(sheet);
     if (!record) return null;
     return {
       type: 'sheet',
       sheet,
+      url: sheetUrl(sheet),
       version: record.version,
       base: null,
       title: record.title,
@@ -151,6 +147,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
       const summary = record.result?.summary;
       entries.push({
         path: record.path,
+        url: sheetUrl(record.path),
         title: record.title,
         state: record.state,
         checksPassed: summary?.checksPassed ?? 0,
@@ -164,11 +161,16 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     return entries.sort((a, b) => a.path.localeCompare(b.path));
   }
 
+  /** The index as a message, rows included. */
+  indexMessage(): { type: 'index'; sheets: IndexEntry[]; rowsHtml: string } {
+    const sheets = this.index();
+    return { type: 'index', sheets, rowsHtml: indexRowsHtml(sheets) };
+  }
+
   /** Waits for the evaluation in progress, if any, and stops taking work. */
   async close(): Promise<void> {
     this.closed = true;
-    this.dirty.clear();
-    await this.running;
+    await this.queue.close();
     for (const record of this.records.values()) record.waiters.splice(0).forEach((w) => w());
   }
 
@@ -189,6 +191,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
         goneAt: 0,
         addedAt,
         movedTo: null,
+        movedFrom: null,
         evaluatedAt: null,
         lastText: null,
         emptyOnce: false,
@@ -201,44 +204,15 @@ export class SheetStore extends EventEmitter<StoreEvents> {
   }
 
   private condition(record: SheetRecord): SheetCondition {
-    return {
-      stale: record.gone || (record.failure !== null && record.result !== null),
-      failure: record.failure,
-      gone: record.gone,
-      movedTo: record.movedTo,
-      evaluatedAt: record.evaluatedAt,
-      elapsedMs: record.result ? Math.round(record.result.elapsedMs * 10) / 10 : null,
-    };
+    const stale = record.gone || (record.failure !== null && record.result !== null);
+    const elapsedMs = record.result ? Math.round(record.result.elapsedMs * 10) / 10 : null;
+    const facts = { stale, failure: record.failure, gone: record.gone, movedTo: record.movedTo, movedFrom: record.movedFrom, path: record.path };
+    return { stale, failure: record.failure, gone: record.gone, movedTo: record.movedTo, evaluatedAt: record.evaluatedAt, elapsedMs, notice: noticeText(facts), footHtml: footHtml(record.evaluatedAt, elapsedMs) };
   }
 
   private schedule(sheet: string): void {
     if (this.closed || !this.records.has(sheet)) return;
-    this.dirty.add(sheet);
-    this.kick();
-  }
-
-  private kick(): void {
-    if (this.running || this.closed) return;
-    this.running = this.drain().finally(() => {
-      this.running = null;
-      // Work may have arrived between the last loop check and now.
-      if (this.dirty.size > 0) this.kick();
-    });
-  }
-
-  private async drain(): Promise<void> {
-    while (this.dirty.size > 0 && !this.closed) {
-      let next: string | undefined;
-      for (const sheet of this.dirty) {
-        if (this.isFollowed(sheet)) {
-          next = sheet;
-          break;
-        }
-        next ??= sheet;
-      }
-      this.dirty.delete(next!);
-      await this.evaluate(next!);
-    }
+    this.queue.add(sheet);
   }
 
   private async evaluate(sheet: string): Promise<void> {
@@ -273,9 +247,9 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     record.state = 'evaluating';
     this.emit('busy', sheet);
     this.emit('index');
-    let result: SheetResult;
+    let result: SheetReport;
     try {
-      result = await this.renderer.render(text, { path: file, root: this.realRoot });
+      result = await this.runner.run(text, { path: file, root: this.realRoot });
     } catch (error) {
       record.lastText = text;
       this.fail(record, `Evaluation failed: ${describe(error)}`);
@@ -288,16 +262,10 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     this.detectMoveTo(record);
   }
 
-  private accept(record: SheetRecord, result: SheetResult): void {
-    const previousKeys = record.parts;
-    const before = new Map(record.parts.map((p) => [p.key, p]));
-    // Unchanged parts arrive as the very same strings: keep their hash instead of rehashing megabytes.
-    const parts = result.parts.map((p) => {
-      const old = before.get(p.key);
-      return { key: p.key, hash: old && old.html === p.html ? old.hash : hashHtml(p.html), html: p.html };
-    });
-    const title = result.title || result.meta.title || path.posix.basename(record.path, '.md');
-    const header = headerHtml(title, result.meta) + (hasCaution(result) ? cautionHtml() : '');
+  private accept(record: SheetRecord, result: SheetReport): void {
+    const { parts, changed: updated, order } = changeOfParts(record.parts, result.parts);
+    const title = result.title;
+    const header = result.headerHtml;
     const changed = { header: header !== record.headerHtml, summary: result.summaryHtml !== record.summaryHtml };
     const base = record.version;
     record.parts = parts;
@@ -306,17 +274,10 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     record.result = result;
     record.title = title;
     record.failure = null;
+    record.movedFrom = null;
     record.state = 'ready';
     record.evaluatedAt = new Date().toISOString();
-    const frames: PartFrame[] = [];
-    for (const p of parts) {
-      const old = before.get(p.key);
-      if (old?.hash === p.hash) continue;
-      const edits = old ? htmlEdits(old.hash, old.html, p.html) : null;
-      frames.push(edits && editsAreSmaller(edits, p.html) ? { key: p.key, hash: p.hash, edits } : { key: p.key, hash: p.hash, html: p.html });
-    }
-    const order = sameKeys(previousKeys, parts) ? null : parts.map((p) => p.key);
-    this.publish(record, base, frames, order, changed.header ? header : null, changed.summary ? record.summaryHtml : null);
+    this.publish(record, base, updated, order, changed.header ? header : null, changed.summary ? record.summaryHtml : null);
   }
 
   private fail(record: SheetRecord, message: string): void {
@@ -330,9 +291,13 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     if (!record || record.gone) return;
     record.gone = true;
     record.goneAt = Date.now();
-    this.dirty.delete(sheet);
+    this.queue.drop(sheet);
     this.deps.forget(sheet);
-    this.detectMoveFrom(record);
+    const to = renamedTo(record, this.records.values());
+    if (to) {
+      record.movedTo = to.path;
+      to.movedFrom = record.path;
+    }
     this.publish(record, record.version, [], null, null, null);
     record.waiters.splice(0).forEach((w) => w());
   }
@@ -346,32 +311,20 @@ export class SheetStore extends EventEmitter<StoreEvents> {
 
   /** `record` has just been evaluated: was it a sheet deleted a moment ago? */
   private detectMoveTo(record: SheetRecord): void {
-    if (Date.now() - record.addedAt > MOVE_WINDOW_MS) return;
-    for (const old of this.records.values()) {
-      if (old.gone && old.movedTo === null && old.lastText === record.lastText && Date.now() - old.goneAt < MOVE_WINDOW_MS) {
-        old.movedTo = record.path;
-        this.publish(old, old.version, [], null, null, null);
-        return;
-      }
-    }
+    const old = renamedFrom(record, this.records.values());
+    if (!old) return;
+    old.movedTo = record.path;
+    record.movedFrom = old.path;
+    this.publish(old, old.version, [], null, null, null);
   }
 
-  /** `record` was just deleted: did the same text appear under another name? */
-  private detectMoveFrom(record: SheetRecord): void {
-    for (const other of this.records.values()) {
-      if (other !== record && !other.gone && other.lastText !== null && other.lastText === record.lastText && Date.now() - other.addedAt < MOVE_WINDOW_MS) {
-        record.movedTo = other.path;
-        return;
-      }
-    }
-  }
-
-  private publish(record: SheetRecord, base: number, parts: PartFrame[], order: string[] | null, headerHtml: string | null, summaryHtml: string | null): void {
+  private publish(record: SheetRecord, base: number, parts: PartUpdate[], order: string[] | null, headerHtml: string | null, summaryHtml: string | null): void {
     record.version = base + 1;
     record.waiters.splice(0).forEach((w) => w());
     this.emit('sheet', {
       type: 'sheet',
       sheet: record.path,
+      url: sheetUrl(record.path),
       version: record.version,
       base,
       title: record.title,
@@ -383,23 +336,6 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     });
     this.emit('index');
   }
-}
-
-function sameKeys(a: readonly { key: string }[], b: readonly { key: string }[]): boolean {
-  return a.length === b.length && a.every((p, i) => p.key === b[i]!.key);
-}
-
-/** Edits win unless nearly everything changed (a rough size count, no serialising). */
-function editsAreSmaller(edits: PartEdits, html: string): boolean {
-  let size = 0;
-  for (const [, was, is] of edits.texts) size += was.length + is.length + 12;
-  for (const [, tag, name, value] of edits.attrs) size += tag.length + name.length + (value?.length ?? 0) + 16;
-  return size < html.length / 2;
-}
-
-/** The engine flags sheets whose figures need a licensed engineer's check. */
-function hasCaution(result: SheetResult): boolean {
-  return result.caution;
 }
 
 function describe(error: unknown): string {

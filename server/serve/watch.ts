@@ -8,6 +8,7 @@
 import { stat } from 'node:fs/promises';
 import path from 'node:path';
 import { watch, type FSWatcher } from 'chokidar';
+import { isIgnoredName } from '../read/sheet-files.js';
 
 export type FileEventKind = 'added' | 'changed' | 'removed';
 
@@ -33,22 +34,6 @@ export interface FolderWatcherOptions {
 // caught some saves still empty (truncated, not yet written: up to 5 in 50 in
 // the benchmark), and those then waited for a second look: 1 ms is cheaper.
 const DEFAULTS = { debounceMs: 1, settleMs: 60, removeGraceMs: 40 };
-
-/** Hidden files, editor backups and dependency folders are never sheets or data. */
-export function isIgnoredName(name: string): boolean {
-  return (
-    name.startsWith('.') ||
-    name.startsWith('#') ||
-    name.startsWith('~') ||
-    name.endsWith('~') ||
-    name === 'node_modules' ||
-    /\.(swp|swx|tmp|bak|crswap)$/i.test(name)
-  );
-}
-
-export function isSheetFile(file: string): boolean {
-  return file.endsWith('.md') && !isIgnoredName(path.posix.basename(file));
-}
 
 interface Tracked {
   /** Cancels the pending look, if one is due. */

@@ -17,7 +17,10 @@ export const REBIND_HOST = 'rebind.wakesheet.test';
 
 /** `describe` for tests that need Chromium. */
 export function describeInBrowser(name: string, body: () => void): void {
-  if (!missing) return describe(name, body);
+  if (!missing) {
+    describe(name, body);
+    return;
+  }
   if (required) {
     describe(name, () => {
       it('has Chromium to run in', () => {

@@ -8,7 +8,7 @@ import { startServer, type RunningServer, type ServeOptions } from '../../server
 import { makeFolder, put } from '../serve/helpers.js';
 import { describeInBrowser, launchBrowser, REBIND_HOST, type Browser } from './launch.js';
 import { valueShown, waitForStatus, waitForValue } from './probes.js';
-import { RUNAWAY, SandboxWithFaults, SLOW, UnsanitisedRenderer, wingSheet } from './sheets.js';
+import { RUNAWAY, SandboxWithFaults, SLOW, UnsanitisedRunner, wingSheet } from './sheets.js';
 
 
 describeInBrowser('live sheet page', () => {
@@ -58,7 +58,7 @@ describeInBrowser('live sheet page', () => {
   });
 
   it('says it is evaluating while a slow sheet runs, and not for a quick one', async () => {
-    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') }, { renderer: new SandboxWithFaults() });
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') }, { runner: new SandboxWithFaults() });
     const page = await openPage(server.url + 'sheet/wing.md');
     await waitForStatus(page, 'live');
     await page.evaluate(() => {
@@ -117,7 +117,7 @@ describeInBrowser('live sheet page', () => {
   });
 
   it('keeps the last good content, marked stale, while evaluation fails, and recovers', async () => {
-    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') }, { renderer: new SandboxWithFaults() });
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') }, { runner: new SandboxWithFaults() });
     const page = await openPage(server.url + 'sheet/wing.md');
     await waitForStatus(page, 'live');
 
@@ -194,7 +194,7 @@ describeInBrowser('live sheet page', () => {
   });
 
   it('stops scripts by its CSP alone, should markup ever get past the sanitiser', async () => {
-    await expectNoScriptRuns({ renderer: new UnsanitisedRenderer() });
+    await expectNoScriptRuns({ runner: new UnsanitisedRunner() });
   });
 
   it('refuses a page asked for under a rebinding host name', async () => {

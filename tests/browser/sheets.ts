@@ -1,7 +1,8 @@
 // Sheets and renderers the browser tests share.
-import { Sandbox } from '../../server/evaluate/sandbox.js';
-import type { RenderOptions, SheetResult } from '../../server/sheet-types.js';
-import type { SheetRenderer } from '../../server/serve/store.js';
+import { Sandbox } from '../../server/sandbox/sandbox.js';
+import type { RunOptions, SheetResult } from '../../server/pipeline/index.js';
+import type { SheetRunner } from '../../server/serve/store.js';
+import { fakeResult } from '../serve/fake-runner.js';
 
 export function wingSheet(speed: string, extra = ''): string {
   return `---
@@ -32,13 +33,13 @@ export const SLOW = '<!-- test: this sheet takes a while -->';
  * timed-out evaluation would. Lets the tests break a sheet at the level of the
  * sandbox whatever the engine does today.
  */
-export class SandboxWithFaults implements SheetRenderer {
+export class SandboxWithFaults implements SheetRunner {
   private readonly inner = new Sandbox({ timeoutMs: 2000 });
 
-  render(text: string, opts: RenderOptions): Promise<SheetResult> {
+  run(text: string, opts: RunOptions): Promise<SheetResult> {
     if (text.includes(RUNAWAY)) return Promise.reject(new Error('evaluation timed out after 2000 ms'));
-    if (text.includes(SLOW)) return new Promise((r) => setTimeout(r, 800)).then(() => this.inner.render(text, opts));
-    return this.inner.render(text, opts);
+    if (text.includes(SLOW)) return new Promise((r) => setTimeout(r, 800)).then(() => this.inner.run(text, opts));
+    return this.inner.run(text, opts);
   }
 
   close(): Promise<void> {
@@ -52,21 +53,9 @@ export class SandboxWithFaults implements SheetRenderer {
  * get if the engine's sanitiser ever let something through. The CSP must
  * still stop any script in it.
  */
-export class UnsanitisedRenderer implements SheetRenderer {
-  async render(text: string): Promise<SheetResult> {
-    return {
-      title: 'unsanitised',
-      meta: {},
-      html: '',
-      parts: [{ key: 'raw', html: text }],
-      summaryHtml: '',
-      summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, errors: 0 },
-      values: {},
-      checks: [],
-      errors: [],
-      reads: [],
-      elapsedMs: 0,
-    };
+export class UnsanitisedRunner implements SheetRunner {
+  async run(text: string): Promise<SheetResult> {
+    return fakeResult({ title: 'unsanitised', parts: [{ key: 'raw', html: text }] });
   }
 
   async close(): Promise<void> {}

@@ -1,7 +1,7 @@
 // Dependency order, redefinition, cycles, stale marking, and the incremental
 // cache (issue 2). Values are checked against hand arithmetic.
 import { describe, expect, it } from 'vitest';
-import { SheetSession } from '../../server/session.js';
+import { SheetPipeline } from '../../server/pipeline/index.js';
 import { sheet, si } from './helpers.js';
 
 describe('dependency order', () => {
@@ -59,12 +59,12 @@ describe('dependency order', () => {
 
 describe('incremental evaluation', () => {
   it('recomputes only what depends on a changed input', () => {
-    const session = new SheetSession();
+    const session = new SheetPipeline();
     const lines = ['U = 12 m/s', 'L = 4.2 m', 'nu = 1.5e-5 m^2/s', 'Re = U * L / nu', 'H = 2 m', 'A = H * L', 'Re_H = U * H / nu'];
     const text = (u: string) => '```basis\n' + lines.join('\n').replace('U = 12 m/s', `U = ${u}`) + '\n```\n';
-    const first = session.render(text('12 m/s')) as unknown as { freshStatements: number; values: Record<string, { si: number }> };
+    const first = session.run(text('12 m/s')) as unknown as { freshStatements: number; values: Record<string, { si: number }> };
     expect(first.freshStatements).toBe(7);
-    const second = session.render(text('14 m/s')) as unknown as { freshStatements: number; values: Record<string, { si: number }> };
+    const second = session.run(text('14 m/s')) as unknown as { freshStatements: number; values: Record<string, { si: number }> };
     // U, Re and Re_H change; L, nu, H and A are reused.
     expect(second.freshStatements).toBe(3);
     expect(second.values.Re!.si).toBeCloseTo((14 * 4.2) / 1.5e-5, 6);
@@ -76,9 +76,9 @@ describe('last good values while a sheet has errors', () => {
   const statement = (html: string, name: string) => new RegExp(`<div class="ws-stmt[^"]*"[^>]*data-name="${name}"[\\s\\S]*?(?=<a id="L|$)`).exec(html)![0];
 
   it('keeps what depends on a broken input in view, marked stale, with only the real error listed', () => {
-    const session = new SheetSession();
-    session.render(text('12 m/s'));
-    const broken = session.render(text('12 m/s + 1 Pa'));
+    const session = new SheetPipeline();
+    session.run(text('12 m/s'));
+    const broken = session.run(text('12 m/s + 1 Pa'));
     const html = broken.parts.map((p) => p.html).join('');
     expect(broken.errors.map((e) => [e.line, e.message])).toEqual([[6, 'cannot add m/s to Pa']]);
     // Re = 12 × 0.3 / 1.5e-5 = 2.4e5, computed before the break.
@@ -90,7 +90,7 @@ describe('last good values while a sheet has errors', () => {
     expect(statement(html, 'U')).toMatch(/ws-last-good-value">12 m\/s</); // the broken input shows its own last good value
     expect(html).toMatch(/<span class="ws-inline ws-stale-value"[^>]*>2\.4×10⁵ <span class="ws-stale-tag">stale<\/span><\/span>/);
 
-    const mended = session.render(text('13 m/s'));
+    const mended = session.run(text('13 m/s'));
     const again = mended.parts.map((p) => p.html).join('');
     expect(again).not.toContain('ws-last-good');
     expect(again).not.toContain('ws-stale-value');
@@ -98,7 +98,7 @@ describe('last good values while a sheet has errors', () => {
   });
 
   it('has no last good value to show on a first evaluation', () => {
-    const html = new SheetSession().render(text('12 m/s + 1 Pa')).parts.map((p) => p.html).join('');
+    const html = new SheetPipeline().run(text('12 m/s + 1 Pa')).parts.map((p) => p.html).join('');
     expect(html).not.toContain('ws-last-good');
     expect(html).toContain('ws-inline-error');
   });

@@ -1,5 +1,5 @@
-import { renderSheet } from '../../server/sheet.js';
-import type { SheetResult } from '../../server/sheet-types.js';
+import { renderSheet } from '../../server/pipeline/index.js';
+import type { SheetResult } from '../../server/pipeline/index.js';
 
 /** Render a sheet made of one basis block holding `lines` (first statement on file line 2). */
 export function sheet(lines: string[], front = ''): Promise<SheetResult> {

@@ -4,7 +4,7 @@ import * as api from '../../server/index.js';
 
 describe('public API', () => {
   it('exports the documented names only', () => {
-    expect(Object.keys(api).sort()).toEqual(['ERROR_CODES', 'Sandbox', 'SandboxError', 'SheetSession', 'createRegistry', 'renderSheet', 'standalonePage']);
+    expect(Object.keys(api).sort()).toEqual(['ERROR_CODES', 'Sandbox', 'SandboxError', 'SheetPipeline', 'createRegistry', 'renderSheet', 'standalonePage']);
   });
 
   it('renderSheet returns html, values, checks and errors, with the sheet inside one <main>', async () => {

@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { ANY_DIMENSION, createRegistry } from '../../server/core/index.js';
 import { parseUnit } from '../../server/units/quantity.js';
-import { renderSheet } from '../../server/sheet.js';
+import { renderSheet } from '../../server/pipeline/index.js';
 
 const registry = createRegistry();
 

@@ -1,7 +1,7 @@
 // Rendering: the KaTeX of issue 2's Reynolds-number example, names as
 // mathematics, number display, and sanitising of raw HTML in the prose.
 import { describe, expect, it } from 'vitest';
-import { renderSheet } from '../../server/sheet.js';
+import { renderSheet } from '../../server/pipeline/index.js';
 import { symbolLatex } from '../../server/render/symbols.js';
 import { formatNumber } from '../../server/render/numbers.js';
 import { sheet } from './helpers.js';

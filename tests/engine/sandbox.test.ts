@@ -4,8 +4,8 @@ import { mkdirSync, mkdtempSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { Sandbox, SandboxError } from '../../server/evaluate/sandbox.js';
-import { renderSheet } from '../../server/sheet.js';
+import { Sandbox, SandboxError } from '../../server/sandbox/sandbox.js';
+import { renderSheet } from '../../server/pipeline/index.js';
 
 const block = (lines: string[]) => '```basis\n' + lines.join('\n') + '\n```\n';
 
@@ -24,12 +24,12 @@ describe('sandbox', () => {
     sandboxes.push(sandbox);
     // The interpreter stops itself at 300 ms; on a loaded machine the sandbox's
     // backstop may kill the child first. Either way the caller gets a time error.
-    const slow = await sandbox.render(heavy(400), {}).then(
+    const slow = await sandbox.run(heavy(400), {}).then(
       (r) => r.errors.find((e) => e.code === 'limit')?.message,
       (e: unknown) => (e instanceof SandboxError && e.code === 'timeout' ? e.message : String(e)),
     );
     expect(slow).toMatch(/stopped after 300 ms|took longer than 300 ms/);
-    const next = await sandbox.render(block(['x = 2 m', 'y = x * 3']), {});
+    const next = await sandbox.run(block(['x = 2 m', 'y = x * 3']), {});
     expect(next.errors).toEqual([]);
     expect(next.values.y!.si).toBe(6);
   });
@@ -37,21 +37,21 @@ describe('sandbox', () => {
   it('stops at the step limit with a clear error', async () => {
     const sandbox = new Sandbox({ timeoutMs: 30000, limits: { maxSteps: 1_000_000 } });
     sandboxes.push(sandbox);
-    const r = await sandbox.render(heavy(30), {});
+    const r = await sandbox.run(heavy(30), {});
     expect(r.errors.some((e) => e.code === 'limit' && /1,000,000 evaluation steps/.test(e.message))).toBe(true);
   });
 
   it('survives a memory bomb: the child dies, the caller gets an error, the next sheet works', async () => {
     const sandbox = new Sandbox({ heapMb: 96, timeoutMs: 20000, limits: { maxSteps: 1e12 } });
     sandboxes.push(sandbox);
-    const err = await sandbox.render(bomb, {}).then(
+    const err = await sandbox.run(bomb, {}).then(
       () => null,
       (e: unknown) => e,
     );
     expect(err).toBeInstanceOf(SandboxError);
     expect((err as SandboxError).code).toBe('memory');
     expect((err as SandboxError).message).toMatch(/96 MiB memory limit/);
-    const next = await sandbox.render(block(['U = 12 m/s']), {});
+    const next = await sandbox.run(block(['U = 12 m/s']), {});
     expect(next.values.U!.si).toBe(12);
   });
 });

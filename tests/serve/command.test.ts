@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseServeArgs, serveCommand, SERVE_HELP } from '../../server/serve/command.js';
+import { parseServeArgs, serveCommand, SERVE_HELP } from '../../server/cli/serve.js';
 import { makeFolder } from './helpers.js';
 
 describe('parseServeArgs', () => {

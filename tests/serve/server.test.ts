@@ -6,8 +6,8 @@ import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { WebSocket } from 'ws';
 import { startServer, type RunningServer } from '../../server/serve/index.js';
-import type { SheetFrameMessage } from '../../server/serve/protocol.js';
-import { ParagraphRenderer } from './fake-renderer.js';
+import type { SheetUpdate } from '../../server/serve/protocol.js';
+import { ParagraphRunner } from './fake-runner.js';
 import { connect, makeFolder, put } from './helpers.js';
 
 let cleanup: (() => Promise<void>)[] = [];
@@ -16,9 +16,9 @@ afterEach(async () => {
   cleanup = [];
 });
 
-async function serve(files: Record<string, string>, renderer = new ParagraphRenderer()): Promise<RunningServer & { dir: string }> {
+async function serve(files: Record<string, string>, runner = new ParagraphRunner()): Promise<RunningServer & { dir: string }> {
   const folder = await makeFolder(files);
-  const server = await startServer({ dir: folder.dir, port: 0, renderer });
+  const server = await startServer({ dir: folder.dir, port: 0, runner });
   cleanup.push(folder.remove, () => server.close());
   return { ...server, close: server.close, dir: folder.dir };
 }
@@ -102,7 +102,7 @@ describe('HTTP', () => {
     const folder = await makeFolder({ 'wing.md': 'w' });
     await symlink(path.join(outside.dir, 'secret.md'), path.join(folder.dir, 'leak.md'));
     await symlink(outside.dir, path.join(folder.dir, 'linked'));
-    const server = await startServer({ dir: folder.dir, port: 0, renderer: new ParagraphRenderer() });
+    const server = await startServer({ dir: folder.dir, port: 0, runner: new ParagraphRunner() });
     cleanup.push(folder.remove, () => server.close());
     const probes = [
       '/sheet/../' + path.basename(outside.dir) + '/secret.md',
@@ -140,13 +140,13 @@ describe('WebSocket', () => {
     const client = await connect(server.url);
     cleanup.push(async () => client.close());
     client.socket.send(JSON.stringify({ type: 'follow', target: 'sheet', sheet: 'wing.md' }));
-    const first = (await client.next((m) => m.type === 'sheet', 'the complete frame')) as SheetFrameMessage;
+    const first = (await client.next((m) => m.type === 'sheet', 'the complete frame')) as SheetUpdate;
     expect(first.base).toBeNull();
     expect(first.parts.map((p) => p.html)).toEqual(['<p>one</p>', '<p>two</p>']);
 
     await writeFile(path.join(server.dir, 'wing.md'), 'one\n\nthree');
     await client.next((m) => m.type === 'busy', 'the busy notice');
-    const patch = (await client.next((m) => m.type === 'sheet', 'the patch')) as SheetFrameMessage;
+    const patch = (await client.next((m) => m.type === 'sheet', 'the patch')) as SheetUpdate;
     expect(patch.base).toBe(first.version);
     expect(first.order).toEqual(['p0', 'p1']);
     expect(patch.parts).toEqual([{ key: 'p1', hash: expect.any(String), html: '<p>three</p>' }]);
@@ -158,9 +158,9 @@ describe('WebSocket', () => {
     const client = await connect(server.url);
     cleanup.push(async () => client.close());
     client.socket.send(JSON.stringify({ type: 'follow', target: 'sheet', sheet: 'wing.md' }));
-    const first = (await client.next((m) => m.type === 'sheet', 'the complete frame')) as SheetFrameMessage;
+    const first = (await client.next((m) => m.type === 'sheet', 'the complete frame')) as SheetUpdate;
     await writeFile(path.join(server.dir, 'data/yplus.csv'), '2');
-    const again = (await client.next((m) => m.type === 'sheet', 'a new frame')) as SheetFrameMessage;
+    const again = (await client.next((m) => m.type === 'sheet', 'a new frame')) as SheetUpdate;
     expect(again.version).toBe(first.version + 1);
   });
 
@@ -186,7 +186,7 @@ describe('WebSocket', () => {
 
   it('drops a client that stops answering pings', async () => {
     const folder = await makeFolder({ 'wing.md': 'w' });
-    const server = await startServer({ dir: folder.dir, port: 0, renderer: new ParagraphRenderer(), live: { heartbeatMs: 50 } });
+    const server = await startServer({ dir: folder.dir, port: 0, runner: new ParagraphRunner(), live: { heartbeatMs: 50 } });
     cleanup.push(folder.remove, () => server.close());
     // A peer that never answers pings: frozen, or gone without a goodbye.
     const silent = await connect(server.url, undefined, { autoPong: false });

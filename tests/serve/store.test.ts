@@ -2,9 +2,9 @@ import { writeFileSync } from 'node:fs';
 import { rm, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import type { SheetFrameMessage } from '../../server/serve/protocol.js';
+import type { SheetUpdate } from '../../server/serve/protocol.js';
 import { SheetStore } from '../../server/serve/store.js';
-import { ParagraphRenderer } from './fake-renderer.js';
+import { ParagraphRunner } from './fake-runner.js';
 import { makeFolder, waitFor } from './helpers.js';
 
 let cleanup: (() => Promise<void>)[] = [];
@@ -15,21 +15,21 @@ afterEach(async () => {
 
 async function storeWith(files: Record<string, string>) {
   const folder = await makeFolder(files);
-  const renderer = new ParagraphRenderer();
-  const store = new SheetStore(folder.dir, renderer);
-  const frames: SheetFrameMessage[] = [];
+  const runner = new ParagraphRunner();
+  const store = new SheetStore(folder.dir, runner);
+  const frames: SheetUpdate[] = [];
   store.on('sheet', (f) => frames.push(f));
   cleanup.push(folder.remove, () => store.close());
   store.addInitial(Object.keys(files));
   for (const name of Object.keys(files)) if (name.endsWith('.md')) await store.whenEvaluated(name);
   const write = (name: string, text: string) => writeFile(path.join(folder.dir, name), text);
-  return { dir: folder.dir, store, renderer, frames, write };
+  return { dir: folder.dir, store, runner, frames, write };
 }
 
 describe('SheetStore', () => {
   it('evaluates every sheet of the first scan, and only sheets', async () => {
-    const { store, renderer } = await storeWith({ 'a.md': '# A\n\none', 'b.md': 'two', 'data.csv': '1' });
-    expect(renderer.calls.map((c) => path.basename(c.opts.path!)).sort()).toEqual(['a.md', 'b.md']);
+    const { store, runner } = await storeWith({ 'a.md': '# A\n\none', 'b.md': 'two', 'data.csv': '1' });
+    expect(runner.calls.map((c) => path.basename(c.opts.path!)).sort()).toEqual(['a.md', 'b.md']);
     expect(store.index().map((e) => [e.path, e.title, e.state])).toEqual([
       ['a.md', 'A', 'ready'],
       ['b.md', 'b', 'ready'],
@@ -45,7 +45,7 @@ describe('SheetStore', () => {
     expect(delta.version).toBe(2);
     expect(delta.parts).toEqual([{ key: 'p1', hash: expect.any(String), html: '<p>TWO</p>' }]);
     expect(delta.order).toBeNull(); // the same parts in the same order
-    const complete = store.frame('a.md')!;
+    const complete = store.complete('a.md')!;
     expect(complete.parts.every((p) => p.html !== undefined)).toBe(true);
     expect(complete.order).toEqual(['p0', 'p1', 'p2']);
   });
@@ -61,9 +61,9 @@ describe('SheetStore', () => {
 
   it('sends small edits instead of html when only text and attributes changed', async () => {
     // A statement-like part: the number is a small text node among a lot of fixed markup.
-    const renderer = new ParagraphRenderer();
-    const plain = renderer.render.bind(renderer);
-    renderer.render = async (text, opts) => {
+    const runner = new ParagraphRunner();
+    const plain = runner.run.bind(runner);
+    runner.run = async (text, opts) => {
       const result = await plain(text, opts);
       const speed = /speed (\S+)/.exec(text)![1]!;
       const fixed = '<span class="katex">'.repeat(20) + 'U' + '</span>'.repeat(20);
@@ -71,9 +71,9 @@ describe('SheetStore', () => {
       return result;
     };
     const folder = await makeFolder({ 'a.md': 'speed 12' });
-    const store = new SheetStore(folder.dir, renderer);
+    const store = new SheetStore(folder.dir, runner);
     cleanup.push(folder.remove, () => store.close());
-    const frames: SheetFrameMessage[] = [];
+    const frames: SheetUpdate[] = [];
     store.on('sheet', (f) => frames.push(f));
     store.addInitial(['a.md']);
     await store.whenEvaluated('a.md');
@@ -104,17 +104,17 @@ describe('SheetStore', () => {
   });
 
   it('re-evaluates only the sheets that read a changed data file', async () => {
-    const { store, renderer } = await storeWith({
+    const { store, runner } = await storeWith({
       'wing.md': 'reads: data/yplus.csv',
       'tail.md': 'reads: data/residuals.csv',
       'data/yplus.csv': '1',
     });
-    const before = renderer.calls.length;
+    const before = runner.calls.length;
     store.handle({ kind: 'changed', file: 'data/yplus.csv' });
-    await waitFor('one more evaluation', () => renderer.calls.length === before + 1);
+    await waitFor('one more evaluation', () => runner.calls.length === before + 1);
     await store.close();
-    expect(path.basename(renderer.calls.at(-1)!.opts.path!)).toBe('wing.md');
-    expect(renderer.calls.length).toBe(before + 1);
+    expect(path.basename(runner.calls.at(-1)!.opts.path!)).toBe('wing.md');
+    expect(runner.calls.length).toBe(before + 1);
   });
 
   it('keeps the last good parts, marked stale, when evaluation fails, and recovers', async () => {
@@ -158,16 +158,16 @@ describe('SheetStore', () => {
   });
 
   it('evaluates a sheet someone follows before the others', async () => {
-    const { store, renderer } = await storeWith({ 'a.md': 'a', 'b.md': 'b', 'c.md': 'c' });
-    renderer.delayMs = 20;
+    const { store, runner } = await storeWith({ 'a.md': 'a', 'b.md': 'b', 'c.md': 'c' });
+    runner.delayMs = 20;
     store.isFollowed = (sheet) => sheet === 'c.md';
-    const before = renderer.calls.length;
+    const before = runner.calls.length;
     store.handle({ kind: 'changed', file: 'a.md' });
-    await waitFor('a.md being evaluated', () => renderer.calls.length === before + 1);
+    await waitFor('a.md being evaluated', () => runner.calls.length === before + 1);
     store.handle({ kind: 'changed', file: 'b.md' });
     store.handle({ kind: 'changed', file: 'c.md' });
-    await waitFor('three evaluations', () => renderer.calls.length === before + 3);
+    await waitFor('three evaluations', () => runner.calls.length === before + 3);
     // While a.md is evaluated, c.md (followed) jumps ahead of b.md.
-    expect(renderer.calls.slice(before).map((c) => path.basename(c.opts.path!))).toEqual(['a.md', 'c.md', 'b.md']);
+    expect(runner.calls.slice(before).map((c) => path.basename(c.opts.path!))).toEqual(['a.md', 'c.md', 'b.md']);
   });
 });

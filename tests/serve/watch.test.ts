@@ -1,7 +1,8 @@
 import { appendFile, rename, rm, symlink, unlink, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
-import { FolderWatcher, isIgnoredName, isSheetFile, type FileEvent } from '../../server/serve/watch.js';
+import { findSheets, isIgnoredName, isSheetFile } from '../../server/read/sheet-files.js';
+import { FolderWatcher, type FileEvent } from '../../server/serve/watch.js';
 import { makeFolder, pause, put, waitFor } from './helpers.js';
 
 let cleanup: (() => Promise<void>)[] = [];
@@ -108,5 +109,13 @@ describe('file names', () => {
     expect(isSheetFile('guide/language.md')).toBe(true);
     expect(isSheetFile('data/yplus.csv')).toBe(false);
     expect(isSheetFile('guide/.draft.md')).toBe(false);
+  });
+  it('finds for `wakesheet check` exactly the sheets the server shows', async () => {
+    const folder = await makeFolder({ 'wing.md': 'w', '#scratch.md': 's', 'notes.md~': 'n', '.draft/x.md': 'x', 'sub/tail.md': 't', 'sub/data.csv': '1' });
+    const watcher = await FolderWatcher.start(folder.dir, { onEvent: () => {} });
+    cleanup.push(folder.remove, () => watcher.close());
+    const found = findSheets(folder.dir).map((f) => path.relative(folder.dir, f).split(path.sep).join('/'));
+    expect(found).toEqual(['sub/tail.md', 'wing.md']);
+    expect(watcher.files().filter(isSheetFile)).toEqual(found);
   });
 });

@@ -4,7 +4,6 @@
 import { fromUnit, parseUnit, quantity, type Quantity } from '../../units/quantity.js';
 import { isDimensionless } from '../../units/dims.js';
 import { unitLabel } from '../../units/labels.js';
-import type { FieldSpec } from './registry.js';
 
 export type Value = Quantity | BoolValue | StringValue | ListValue | RecordValue | TableValue | FigureValue;
 
@@ -115,28 +114,6 @@ export function record(entries: Array<[string, Value, string?]>, init: RecordIni
   if (init.figure) r.figure = init.figure;
   if (init.tag) r.tag = init.tag;
   return r;
-}
-
-/**
- * A record whose fields follow a trade function's declared field list: order,
- * symbols and notes come from the list (a note given in `notes` replaces the
- * declared one); fields without a value are left out.
- */
-export function fieldRecord(
-  specs: readonly FieldSpec[],
-  values: Readonly<Record<string, Value | undefined>>,
-  init: RecordInit = {},
-  notes: Readonly<Record<string, string>> = {},
-): RecordValue {
-  const fields = new Map<string, RecordField>();
-  for (const spec of specs) {
-    const value = values[spec.name];
-    if (value !== undefined) fields.set(spec.name, { value, note: notes[spec.name] ?? spec.doc, symbol: spec.symbol });
-  }
-  for (const name of Object.keys(values)) {
-    if (!fields.has(name) && values[name] !== undefined) throw new Error(`field ${name} is not in the declared field list`);
-  }
-  return { ...record([], init), fields };
 }
 
 /** A value's kind as messages name it: "a quantity in m/s", "a plain number", "text", "a record". */

@@ -1,16 +1,10 @@
 // The shapes that leave the pipeline: what `renderSheet`, `wakesheet eval --json`
 // and the live server all hand on. Changing them is a public-API change.
+import type { SheetPart } from '../render/parts.js';
+import type { SheetSummary } from '../render/page.js';
+import type { ValueJson } from '../render/values.js';
 
-export interface ValueJson {
-  /** SI value; null for text, booleans, records, figures. */
-  si: number | null;
-  /** SI unit text ("m/s", "Pa s", "" for plain numbers). */
-  unit: string;
-  /** As rendered, e.g. "23 µm". */
-  display: string;
-  fields?: Record<string, ValueJson>;
-  items?: ValueJson[];
-}
+export type { SheetPart, SheetSummary, ValueJson };
 
 export interface CheckJson {
   line: number;
@@ -26,28 +20,14 @@ export interface ErrorJson {
   code?: string;
 }
 
-/** One piece of the sheet's <main>: a run of prose or one input block. */
-export interface SheetPart {
-  /** Stable within a file as long as the part keeps its place ("b3", "t4"). */
-  key: string;
-  html: string;
-}
-
-export interface SheetSummary {
-  inputs: number;
-  results: number;
-  checksPassed: number;
-  checksFailed: number;
-  errors: number;
-}
-
-export interface SheetResult {
+/** One run of the pipeline over a sheet: everything but the standalone page. */
+export interface SheetReport {
   title: string;
   /** Front matter as read (title, project, revision, author, sigfigs …). */
   meta: Record<string, string>;
-  /** A complete standalone HTML document (summary outside <main>, sheet inside). */
-  html: string;
-  /** The inner content of <main>, in parts, for in-place patching. */
+  /** The sheet's header: title, front-matter facts, and the planning caution where due. */
+  headerHtml: string;
+  /** The inner content of <main>, in parts, for in-place updates. */
   parts: SheetPart[];
   /** The summary panel's HTML (outside <main>). */
   summaryHtml: string;
@@ -61,9 +41,17 @@ export interface SheetResult {
   elapsedMs: number;
   /** The sheet computes something that can hurt someone (loads …): show the planning caution. */
   caution: boolean;
+  /** Statements computed afresh in this run (the rest were reused). */
+  freshStatements: number;
 }
 
-export interface RenderOptions {
+/** A report with its standalone page. */
+export interface SheetResult extends SheetReport {
+  /** A complete standalone HTML document (summary outside <main>, sheet inside). */
+  html: string;
+}
+
+export interface RunOptions {
   /** Path of the sheet file (used in messages and to resolve data files). */
   path?: string;
   /** Project folder: data files are readable only inside it. */

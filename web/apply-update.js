@@ -1,18 +1,11 @@
-// Applies a sheet frame from the server to the page. Only parts whose hash
+// Applies a sheet update from the server to the page. Only parts whose hash
 // changed are touched, and inside them only the nodes that differ (morph.js);
 // parts are added, moved and removed to follow the server's order. Opened
 // <details> stay open, and holdPlace keeps the reader's place on screen.
 import { forgetNodes, prepareEdits } from './edits.js';
 import { morphContent } from './morph.js';
 
-/**
- * @typedef {{key: string, hash: string, html?: string, edits?: import('./edits.js').PartEdits}} PartFrame
- * @typedef {{stale: boolean, failure: string | null, gone: boolean, movedTo: string | null,
- *            evaluatedAt: string | null, elapsedMs: number | null}} SheetCondition
- * @typedef {{type: 'sheet', sheet: string, version: number, base: number | null, title: string,
- *            parts: PartFrame[], order: string[] | null, headerHtml: string | null, summaryHtml: string | null,
- *            condition: SheetCondition}} SheetFrame
- */
+/** @typedef {import('../server/serve/protocol.js').SheetUpdate} SheetUpdate */
 
 /** @type {WeakMap<HTMLElement, Map<string, HTMLElement>>} the parts of each <main> by key */
 const partsOf = new WeakMap();
@@ -23,7 +16,7 @@ function partsByKey(main) {
   if (!parts) {
     parts = new Map();
     for (const child of main.children) {
-      if (child instanceof HTMLElement && child.dataset.key) parts.set(child.dataset.key, child);
+      if (child instanceof HTMLElement && child.dataset.part) parts.set(child.dataset.part, child);
     }
     partsOf.set(main, parts);
   }
@@ -32,35 +25,35 @@ function partsByKey(main) {
 
 /**
  * @param {HTMLElement} main
- * @param {SheetFrame} frame
- * @returns {boolean} false when the frame cannot be applied and a complete one is needed
+ * @param {SheetUpdate} update
+ * @returns {boolean} false when the update cannot be applied and a complete one is needed
  */
-export function patchParts(main, frame) {
+export function applyParts(main, update) {
   const existing = partsByKey(main);
-  // Everything is checked before anything changes, so a frame that does not
+  // Everything is checked before anything changes, so an update that does not
   // fit leaves the page as it was.
   /** @type {Map<string, () => void>} */
   const edits = new Map();
-  for (const part of frame.parts) {
+  for (const part of update.parts) {
     const element = existing.get(part.key);
     if (element?.dataset.hash === part.hash || part.html !== undefined) continue;
     const apply = element && part.edits ? prepareEdits(element, part.edits) : null;
     if (!apply) return false;
     edits.set(part.key, apply);
   }
-  // A patch lists only the parts that changed; it names every key only when the order changed.
-  const changed = new Map(frame.parts.map((p) => [p.key, p]));
-  if (frame.order) {
-    for (const key of frame.order) if (!existing.has(key) && changed.get(key)?.html === undefined) return false;
-  } else if (frame.parts.some((p) => !existing.get(p.key)?.isConnected)) {
+  // A relative update lists only the parts that changed; it names every key only when the order changed.
+  const changed = new Map(update.parts.map((p) => [p.key, p]));
+  if (update.order) {
+    for (const key of update.order) if (!existing.has(key) && changed.get(key)?.html === undefined) return false;
+  } else if (update.parts.some((p) => !existing.get(p.key)?.isConnected)) {
     return false;
   }
-  for (const part of frame.parts) {
+  for (const part of update.parts) {
     let element = existing.get(part.key);
     if (!element) {
       element = document.createElement('div');
       element.className = 'ws-part live-part';
-      element.dataset.key = part.key;
+      element.dataset.part = part.key;
     }
     if (element.dataset.hash !== part.hash) {
       if (part.html !== undefined) replaceContent(element, part.html);
@@ -69,7 +62,7 @@ export function patchParts(main, frame) {
     }
     existing.set(part.key, element);
   }
-  if (frame.order) reorder(main, existing, frame.order);
+  if (update.order) reorder(main, existing, update.order);
 
   return true;
 }
@@ -95,7 +88,10 @@ function reorder(main, parts, order) {
   }
 }
 
-/** Brings an element's content up to date, keeping open the <details> that were open. */
+/**
+ * Brings an element's content up to date, keeping open the <details> that were open.
+ * @param {Element} element @param {string} html
+ */
 export function replaceContent(element, html) {
   const open = new Set();
   element.querySelectorAll('details').forEach((d, i) => {

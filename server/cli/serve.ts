@@ -1,6 +1,6 @@
 // `wakesheet serve [DIR] [--port N] [--host H]`: parse the flags, start the
 // server, print where it listens, and stop cleanly on Ctrl-C.
-import { DEFAULT_HOST, DEFAULT_PORT, startServer, type RunningServer } from './index.js';
+import { DEFAULT_HOST, DEFAULT_PORT, startServer, type RunningServer } from '../serve/index.js';
 
 export const SERVE_HELP = `Usage: wakesheet serve [DIR] [--port N] [--host H]
 

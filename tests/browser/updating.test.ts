@@ -34,7 +34,7 @@ ${opts.drop ? '' : 'Re = U * D / nu\n'}${opts.extra ?? ''}check U < 40 m/s "with
 `;
 }
 
-describeInBrowser('patching in place', () => {
+describeInBrowser('updating in place', () => {
   let browser: Browser;
   let server: RunningServer;
   let folder: { dir: string; remove: () => Promise<void> };

@@ -5,11 +5,9 @@
 // fresh one started for the next request.
 import { fork, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
-import { withPage } from '../sheet.js';
-import type { RenderOptions, SheetResult } from '../sheet-types.js';
-import { DEFAULT_LIMITS, type Limits } from './limits.js';
-import { sessionKey, type ChildReply, type ChildRequest, type WireCore } from './sandbox-wire.js';
-import type { SheetCore } from '../session.js';
+import { DEFAULT_LIMITS, type Limits } from '../evaluate/index.js';
+import { withPage, type RunOptions, type SheetReport, type SheetResult } from '../pipeline/index.js';
+import { pipelineKey, type ChildReply, type ChildRequest, type WireReport } from './wire.js';
 
 export interface SandboxOptions {
   /** Wall-clock limit per sheet (default 2000 ms). */
@@ -35,7 +33,7 @@ interface Pending {
   reject: (e: Error) => void;
 }
 
-const childPath = fileURLToPath(new URL(import.meta.url.endsWith('.ts') ? './sandbox-child.ts' : './sandbox-child.js', import.meta.url));
+const childPath = fileURLToPath(new URL(import.meta.url.endsWith('.ts') ? './child.ts' : './child.js', import.meta.url));
 
 export class Sandbox {
   private child: ChildProcess | undefined;
@@ -55,7 +53,8 @@ export class Sandbox {
     this.heapMb = options.heapMb ?? 256;
   }
 
-  render(text: string, opts: RenderOptions): Promise<SheetResult> {
+  /** Runs the pipeline over one sheet in the child. */
+  run(text: string, opts: RunOptions): Promise<SheetResult> {
     if (this.closed) return Promise.reject(new Error('the sandbox is closed'));
     return new Promise((resolve, reject) => {
       this.queue.push({ req: { id: this.nextId++, text, opts, limits: this.limits }, resolve, reject });
@@ -149,17 +148,17 @@ export class Sandbox {
     this.busy = undefined;
     clearTimeout(this.timer);
     if (this.queue.length === 0) (this.child as unknown as { channel?: { unref(): void } } | undefined)?.channel?.unref();
-    if (m.ok) job.resolve(withPage(this.unwire(job.req, m.core)));
+    if (m.ok) job.resolve(withPage(this.unwire(job.req, m.report)));
     else job.reject(new SandboxError('crash', m.message));
     void this.pump();
   }
 
-  private unwire(req: ChildRequest, core: WireCore): SheetCore {
-    const key = sessionKey(req);
+  private unwire(req: ChildRequest, report: WireReport): SheetReport {
+    const key = pipelineKey(req);
     const known = this.parts.get(key) ?? new Map<string, string>();
-    const parts = core.parts.map((p) => ({ key: p.key, html: p.html ?? known.get(p.key) ?? '' }));
+    const parts = report.parts.map((p) => ({ key: p.key, html: p.html ?? known.get(p.key) ?? '' }));
     this.parts.set(key, new Map(parts.map((p) => [p.key, p.html])));
-    return { ...core, parts };
+    return { ...report, parts };
   }
 
   private kill(): void {

@@ -1,0 +1,7 @@
+// The evaluate stage's public surface.
+export { evaluateSheet, EvalCache, type EvalOptions, type SheetEvaluation, type StatementResult } from './sheet-eval.js';
+export { type InlineExpr, type InlineResult } from './inline.js';
+export { DEFAULT_LIMITS, type Limits } from './limits.js';
+export { CONSTANTS } from './scope.js';
+export { sameItems } from './memo.js';
+export { namesUsed } from './graph.js';

@@ -1,0 +1,4 @@
+// The pipeline's public surface.
+export { SheetPipeline, type PipelineOptions } from './pipeline.js';
+export { renderSheet, standalonePage, withPage } from './library.js';
+export type * from './types.js';

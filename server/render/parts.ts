@@ -1,0 +1,144 @@
+// The sheet's <main> as parts: each prose part and each basis block becomes
+// one keyed piece of html. A part whose inputs are the same objects as last
+// time keeps its html string (cheap to compare downstream); inside a changed
+// block each statement is memoised on its own.
+import type { Value } from '../core/index.js';
+import { sameItems, type InlineResult, type StatementResult } from '../evaluate/index.js';
+import type { BrokenLine, ParsedLine, Statement } from '../parse/index.js';
+import { isStatement } from '../parse/index.js';
+import type { InlineSource, SplitSheet } from '../read/parts.js';
+import { inlineHtml } from './inline.js';
+import { inlineValueSpans, proseHtml } from './prose.js';
+import { errorHtml, lastGoodHtml, statementHtml, type StatementView } from './statement.js';
+
+/** One piece of the sheet's <main>: a run of prose or one input block. */
+export interface SheetPart {
+  /** Stable within a file as long as the part keeps its place ("b3", "t4"). */
+  key: string;
+  html: string;
+}
+
+/** What rendering reads besides each statement's own result. */
+export interface SheetView extends StatementView {
+  lastGood: ReadonlyMap<string, Value>;
+}
+
+export interface PartsInput {
+  sheet: SplitSheet;
+  /** The parsed lines of each block part, in order. */
+  blocks: readonly (readonly ParsedLine[])[];
+  /** Statement results by file line. */
+  results: ReadonlyMap<number, StatementResult>;
+  inline: ReadonlyMap<string, InlineResult>;
+  view: SheetView;
+}
+
+interface Memo {
+  html: string;
+  inputs: unknown[];
+}
+
+export function inlineKey(line: number, text: string): string {
+  return `${line}\u0000${text}`;
+}
+
+export class PartRenderer {
+  private readonly parts = new Map<string, Memo>();
+  /** Rendered statements of the last runs, by line and text. */
+  private statements = new Map<string, Memo>();
+
+  render(input: PartsInput): SheetPart[] {
+    const out: SheetPart[] = [];
+    let blockIndex = 0;
+    let statementCount = 0;
+    input.sheet.parts.forEach((part, i) => {
+      if (part.kind === 'prose') {
+        const key = `t${i}`;
+        out.push({ key, html: this.prose(key, part.raw, part.tokens, part.inline, input) });
+        return;
+      }
+      const items = input.blocks[blockIndex++]!;
+      statementCount += items.length;
+      const key = `b${i}`;
+      out.push({ key, html: this.block(key, part.fenceLine, items, input) });
+    });
+    // Forget statements that left the sheet, now and then rather than every run.
+    if (this.statements.size > 2 * statementCount + 100) this.forgetStatements(input);
+    return out;
+  }
+
+  private block(key: string, fenceLine: number, items: readonly ParsedLine[], input: PartsInput): string {
+    const { view } = input;
+    const inputs: unknown[] = [];
+    for (const item of items) {
+      if (isStatement(item)) statementInputs(input.results.get(item.line)!, view, inputs);
+      else inputs.push(item.message, item.line, item.column, view.lastGood.get(item.name ?? ''));
+    }
+    const memo = this.parts.get(key);
+    if (memo && sameItems(memo.inputs, inputs)) return memo.html;
+    const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, view) : brokenHtml(item, view)));
+    const html = `<div class="ws-block" data-fence-line="${fenceLine}">${pieces.join('')}</div>`;
+    this.parts.set(key, { html, inputs });
+    return html;
+  }
+
+  /** One statement's HTML, reused while its result and inputs are the same objects. */
+  private statement(r: StatementResult, view: SheetView): string {
+    const key = statementKey(r.stmt);
+    const inputs = statementInputs(r, view, []);
+    const memo = this.statements.get(key);
+    if (memo && sameItems(memo.inputs, inputs)) return memo.html;
+    const html = `<a id="L${r.stmt.line}" class="ws-anchor"></a>${statementHtml(r, view)}`;
+    this.statements.set(key, { html, inputs });
+    return html;
+  }
+
+  private prose(key: string, raw: string, tokens: Parameters<typeof proseHtml>[0], inline: readonly InlineSource[], input: PartsInput): string {
+    const memo = this.parts.get(key);
+    let base: string;
+    if (memo && memo.inputs[0] === raw) base = memo.html;
+    else {
+      base = proseHtml(tokens, input.sheet.links);
+      this.parts.set(key, { html: base, inputs: [raw] });
+    }
+    if (inline.length === 0) return base;
+    // The code spans in the html are the inline sources in document order; a
+    // <code> written as raw HTML in the prose has no source and stays as it is.
+    const queue = new Map<string, InlineSource[]>();
+    for (const s of inline) {
+      const list = queue.get(s.text);
+      if (list) list.push(s);
+      else queue.set(s.text, [s]);
+    }
+    let html = base;
+    for (const span of inlineValueSpans(base)) {
+      const source = queue.get(span.expr.trim())?.shift();
+      if (!source) continue;
+      const result = input.inline.get(inlineKey(source.line, source.text));
+      if (result) html = html.replace(span.match, () => inlineHtml(source.text, result, input.view.sig));
+    }
+    return html;
+  }
+
+  private forgetStatements(input: PartsInput): void {
+    const live = new Set<string>();
+    for (const items of input.blocks) for (const item of items) if (isStatement(item)) live.add(statementKey(item));
+    for (const k of this.statements.keys()) if (!live.has(k)) this.statements.delete(k);
+  }
+}
+
+function statementKey(s: Statement): string {
+  return `${s.line}\u0000${s.source}`;
+}
+
+function brokenHtml(item: BrokenLine, view: SheetView): string {
+  return `<div class="ws-stmt ws-broken" id="L${item.line}" data-line="${item.line}">${errorHtml(item.message, item.line, item.column, item.source)}${lastGoodHtml(item.name, view)}</div>`;
+}
+
+/** What a statement's HTML depends on, appended to `out`. */
+function statementInputs(r: StatementResult, view: SheetView, out: unknown[]): unknown[] {
+  out.push(r.stmt.line, r.stmt.source, r.value, r.error?.message, r.error?.column, r.blockedBy, r.skipped, r.warnings.length ? r.warnings.join('\n') : '');
+  for (const n of r.uses) out.push(view.values.get(n));
+  if ((r.error || r.blockedBy) && r.stmt.type === 'define') out.push(view.lastGood.get(r.stmt.name));
+  return out;
+}
