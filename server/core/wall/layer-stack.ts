@@ -2,6 +2,7 @@
 // first·growth^i, so total = first (growth^count − 1)/(growth − 1) and
 // last = first·growth^(count−1). Any three of the four give the fourth.
 import { TradeError } from '../shared/trade-error.js';
+import { numberText } from '../shared/words.js';
 
 export type StackUnknown = 'first' | 'growth' | 'count' | 'total';
 
@@ -91,7 +92,7 @@ function solveCount(first: number, growth: number, total: number): number {
     const arg = 1 + ratio * (growth - 1);
     if (arg <= 0) {
       throw new TradeError(
-        `with growth ${growth} the layers shrink and their sum never passes ${(1 / (1 - growth)).toPrecision(4)} × first, short of the total`,
+        `with growth ${numberText(growth)} the layers shrink and their sum never passes ${numberText(1 / (1 - growth), { digits: 4 })} × first, short of the total`,
       );
     }
     exact = Math.log(arg) / Math.log(growth);
