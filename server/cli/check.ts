@@ -1,11 +1,17 @@
 // `wakesheet check [DIR]`: every sheet under DIR, one line per failure.
 import { existsSync, statSync } from 'node:fs';
 import { relative, resolve } from 'node:path';
+import { countText } from '../core/index.js';
 import { findSheets } from '../read/sheet-files.js';
 import { colour, parseArgs, runOne, Sandbox, UsageError } from './shared.js';
 
+export const CHECK_HELP = `wakesheet check [DIR]
+
+Evaluates every sheet under DIR (default: the current folder). Prints one line
+per failed check or error as file:line: message, and exits 1 if there is any.`;
+
 export async function checkCommand(argv: string[]): Promise<number> {
-  const { positional } = parseArgs(argv, []);
+  const { positional } = parseArgs(argv, { flags: {} });
   if (positional.length > 1) throw new UsageError('check takes at most one folder');
   const dir = resolve(positional[0] ?? '.');
   if (!existsSync(dir) || !statSync(dir).isDirectory()) throw new UsageError(`not a folder: ${positional[0]}`);
@@ -29,6 +35,6 @@ export async function checkCommand(argv: string[]): Promise<number> {
   } finally {
     await sandbox.close();
   }
-  process.stdout.write(`${sheets} sheets, ${bad === 0 ? colour(32, 'all checks pass') : colour(31, `${bad} problems`)}\n`);
+  process.stdout.write(`${countText(sheets, 'sheet')}, ${bad === 0 ? colour(32, 'all checks pass') : colour(31, countText(bad, 'problem'))}\n`);
   return bad ? 1 : 0;
 }

@@ -1,11 +1,22 @@
 // `wakesheet eval SHEET.md [--json] [--root DIR]`: values, checks and errors.
 import { dirname, resolve } from 'node:path';
-import { colour, failing, parseArgs, runOne, Sandbox, UsageError } from './shared.js';
+import type { ValueJson } from '../pipeline/index.js';
+import { colour, failing, parseArgs, runOne, Sandbox, sheetArgument, UsageError, type FlagSpec } from './shared.js';
+
+export const EVAL_HELP = `wakesheet eval SHEET.md [--json] [--root DIR]
+
+Evaluates SHEET.md in the sandbox and prints every value, check and error.
+With --json prints {"values": {...}, "checks": [...], "errors": [...]} with SI
+values (temperatures in kelvin, percentages as fractions); otherwise one line
+per value, with the fields of records indented below them.
+Data files are readable inside the sheet's folder, or inside --root DIR.`;
+
+const FLAGS: FlagSpec = { flags: { json: 'switch', root: 'value' } };
 
 export async function evalCommand(argv: string[]): Promise<number> {
-  const { positional, flags } = parseArgs(argv, ['root']);
+  const { positional, flags } = parseArgs(argv, FLAGS);
   if (positional.length !== 1) throw new UsageError('eval takes one sheet');
-  const file = positional[0]!;
+  const file = sheetArgument(positional[0]!, 'eval');
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
   const sandbox = new Sandbox();
   try {
@@ -14,12 +25,35 @@ export async function evalCommand(argv: string[]): Promise<number> {
       const errors = r.errors.map((e) => ({ line: e.line, column: e.column, message: e.message, code: e.code }));
       process.stdout.write(JSON.stringify({ values: r.values, checks: r.checks, errors }, null, 2) + '\n');
     } else {
-      for (const [name, v] of Object.entries(r.values)) process.stdout.write(`${name} = ${v.display}\n`);
-      for (const c of r.checks) process.stdout.write(`${c.passed ? colour(32, 'pass') : colour(31, 'FAIL')} line ${c.line}: ${c.text}\n`);
-      for (const e of r.errors) process.stdout.write(`${colour(31, 'error')} ${file}:${e.line}:${e.column}: ${e.message}\n`);
+      const lines: string[] = [];
+      for (const [name, v] of Object.entries(r.values)) valueLines(name, v, '', lines);
+      for (const c of r.checks) lines.push(`${c.passed ? colour(32, 'pass') : colour(31, 'FAIL')} line ${c.line}: ${c.text}`);
+      for (const e of r.errors) lines.push(`${colour(31, 'error')} ${file}:${e.line}:${e.column}: ${e.message}`);
+      process.stdout.write(lines.map((l) => l + '\n').join(''));
     }
     return failing(r) ? 1 : 0;
   } finally {
     await sandbox.close();
   }
+}
+
+/** A value as text lines: a record's fields indented under its name, a table as rows. */
+function valueLines(name: string, v: ValueJson, indent: string, out: string[]): void {
+  if (v.table) {
+    out.push(`${indent}${name} =`);
+    out.push(...tableLines(v.table, indent + '  '));
+    return;
+  }
+  if (!v.fields) {
+    out.push(`${indent}${name} = ${v.display}`);
+    return;
+  }
+  out.push(`${indent}${name}:`);
+  for (const [field, f] of Object.entries(v.fields)) valueLines(field, f, indent + '  ', out);
+}
+
+function tableLines(t: NonNullable<ValueJson['table']>, indent: string): string[] {
+  const cells = [t.columns, ...t.rows.map((row) => row.map((c) => c.display))];
+  const widths = t.columns.map((_, i) => Math.max(...cells.map((row) => (row[i] ?? '').length)));
+  return cells.map((row) => indent + row.map((c, i) => (c ?? '').padEnd(widths[i]!)).join('  ').trimEnd());
 }

@@ -1,8 +1,9 @@
-// The wakesheet command: argv → one of eval, render, check, serve.
-import { checkCommand } from './check.js';
-import { evalCommand } from './eval.js';
-import { renderCommand } from './render.js';
-import { UsageError } from './shared.js';
+// The wakesheet command: argv → one of eval, render, check, serve. Every
+// failure is one plain line: exit 2 for bad usage, 1 for a sheet that fails.
+import { CHECK_HELP, checkCommand } from './check.js';
+import { EVAL_HELP, evalCommand } from './eval.js';
+import { RENDER_HELP, renderCommand } from './render.js';
+import { UsageError, version } from './shared.js';
 
 const USAGE = `wakesheet — design-basis worksheets for external-flow CFD set-ups
 
@@ -13,37 +14,20 @@ usage:
   wakesheet check [DIR]                          evaluate every sheet under DIR; list failures
   wakesheet serve [DIR] [--port N] [--host H]    serve DIR's sheets live in the browser
   wakesheet COMMAND --help                       help on one command
+  wakesheet --version                            the version of this wakesheet
 
 exit codes: 0 all good, 1 failed checks or errors, 2 bad usage`;
 
-const HELP: Record<string, string> = {
-  eval: `wakesheet eval SHEET.md [--json] [--root DIR]
-
-Evaluates SHEET.md in the sandbox. With --json prints
-{"values": {...}, "checks": [...], "errors": [...]} with SI values
-(temperatures in kelvin, percentages as fractions); otherwise one line per value.
-Data files are readable inside the sheet's folder, or inside --root DIR.`,
-  render: `wakesheet render SHEET.md -o OUT.html [--root DIR]
-
-Writes the rendered sheet as one self-contained HTML file (KaTeX fonts inlined),
-to archive as the set-up record.`,
-  check: `wakesheet check [DIR]
-
-Evaluates every .md sheet under DIR (default: the current folder). Prints one line
-per failed check or error as file:line: message, and exits 1 if there is any.`,
-  serve: `wakesheet serve [DIR] [--port N] [--host H]
-
-Serves the sheets under DIR (default: worksheets) on http://127.0.0.1:PORT and
-updates open pages on every save. --host binds another address (with a warning).`,
-};
-
-async function serve(argv: string[]): Promise<number> {
-  // Loaded only for serve: the server's modules are not needed by the other commands.
-  const { serveCommand } = await import('./serve.js');
-  return serveCommand(argv);
+interface Command {
+  help: string;
+  run(argv: string[]): Promise<number>;
 }
 
-const COMMANDS: Record<string, (argv: string[]) => Promise<number>> = { eval: evalCommand, render: renderCommand, check: checkCommand, serve };
+const COMMANDS: Record<string, Command> = {
+  eval: { help: EVAL_HELP, run: evalCommand },
+  render: { help: RENDER_HELP, run: renderCommand },
+  check: { help: CHECK_HELP, run: checkCommand },
+};
 
 export async function main(argv: string[]): Promise<number> {
   const [cmd, ...rest] = argv;
@@ -51,20 +35,29 @@ export async function main(argv: string[]): Promise<number> {
     process.stdout.write(USAGE + '\n');
     return cmd ? 0 : 2;
   }
-  const run = Object.hasOwn(COMMANDS, cmd) ? COMMANDS[cmd] : undefined;
-  if (!run) {
-    process.stderr.write(`unknown command "${cmd}"\n\n${USAGE}\n`);
+  if (cmd === '--version' || cmd === '-v' || cmd === 'version') {
+    process.stdout.write(`wakesheet ${version()}\n`);
+    return 0;
+  }
+  if (cmd === 'serve') {
+    // Loaded only for serve: the server's modules are not needed by the other commands.
+    const { serveCommand } = await import('./serve.js');
+    return serveCommand(rest);
+  }
+  const command = Object.hasOwn(COMMANDS, cmd) ? COMMANDS[cmd] : undefined;
+  if (!command) {
+    process.stderr.write(`wakesheet: unknown command "${cmd}"; the commands are eval, render, check and serve (wakesheet --help)\n`);
     return 2;
   }
   if (rest.includes('--help') || rest.includes('-h')) {
-    process.stdout.write((HELP[cmd] ?? USAGE) + '\n');
+    process.stdout.write(command.help + '\n');
     return 0;
   }
   try {
-    return await run(rest);
+    return await command.run(rest);
   } catch (e) {
     if (e instanceof UsageError) {
-      process.stderr.write(`${e.message}\n\n${HELP[cmd]}\n`);
+      process.stderr.write(`wakesheet ${cmd}: ${e.message} (wakesheet ${cmd} --help)\n`);
       return 2;
     }
     throw e;

@@ -1,30 +1,53 @@
-// What the commands share: the usage error, flag parsing, colour, and
-// running one sheet in the sandbox with a sandbox failure as an error line.
-import { existsSync, readFileSync } from 'node:fs';
-import { resolve } from 'node:path';
+// What the commands share: the usage error, flag parsing against each
+// command's own flags, colour, reading a sheet, running it in the sandbox
+// with a sandbox failure as the sheet's error, and writing output files.
+import { existsSync, readFileSync, renameSync, statSync, unlinkSync, writeFileSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
+import { nearestWord } from '../core/index.js';
 import type { SheetResult } from '../pipeline/index.js';
+import { packageRoot } from '../read/paths.js';
+import { isSheetFile } from '../read/sheet-files.js';
 import { Sandbox, SandboxError } from '../sandbox/sandbox.js';
 
+/** Bad arguments: one line, exit 2. */
 export class UsageError extends Error {}
+
+/** A command's flags without their dashes: a switch, or a flag that takes a value. Short forms map to long ones. */
+export interface FlagSpec {
+  flags: Record<string, 'switch' | 'value'>;
+  short?: Record<string, string>;
+}
 
 export interface Parsed {
   positional: string[];
   flags: Map<string, string | true>;
 }
 
-export function parseArgs(argv: string[], valued: string[]): Parsed {
+export function parseArgs(argv: string[], spec: FlagSpec): Parsed {
   const positional: string[] = [];
   const flags = new Map<string, string | true>();
+  const known = Object.keys(spec.flags);
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
-    if (a.startsWith('-') && a !== '-') {
-      const name = a.replace(/^--?/, '');
-      if (valued.includes(name)) {
-        const v = argv[++i];
-        if (v === undefined) throw new UsageError(`${a} needs a value`);
-        flags.set(name, v);
-      } else flags.set(name, true);
-    } else positional.push(a);
+    if (!a.startsWith('-') || a === '-') {
+      positional.push(a);
+      continue;
+    }
+    const m = /^(--?)([^=]+)(?:=(.*))?$/.exec(a)!;
+    const name = m[1] === '-' && m[2]!.length === 1 ? (spec.short?.[m[2]!] ?? m[2]!) : m[2]!;
+    const kind = Object.hasOwn(spec.flags, name) ? spec.flags[name] : undefined;
+    if (!kind) {
+      const hint = nearestWord(name, known);
+      throw new UsageError(`unknown option ${a}${hint ? `; did you mean --${hint}?` : known.length ? `; the options are ${known.map((k) => `--${k}`).join(', ')}` : ''}`);
+    }
+    if (kind === 'switch') {
+      if (m[3] !== undefined) throw new UsageError(`--${name} takes no value`);
+      flags.set(name, true);
+      continue;
+    }
+    const v = m[3] ?? argv[++i];
+    if (v === undefined || v === '') throw new UsageError(`${a} needs a value`);
+    flags.set(name, v);
   }
   return { positional, flags };
 }
@@ -34,15 +57,18 @@ export function colour(code: number, s: string): string {
   return on ? `\u001b[${code}m${s}\u001b[0m` : s;
 }
 
-function readSheet(file: string): string {
+/** The sheet named on the command line: an existing Markdown file, or a usage error that says what it is instead. */
+export function sheetArgument(file: string, command: string): string {
   if (!existsSync(file)) throw new UsageError(`no such file: ${file}`);
-  return readFileSync(file, 'utf8');
+  if (statSync(file).isDirectory()) throw new UsageError(`${file} is a folder; ${command} takes one sheet (to evaluate every sheet in a folder: wakesheet check ${file})`);
+  if (!isSheetFile(file)) throw new UsageError(`${file} is not a sheet: a worksheet is a Markdown file ending in .md`);
+  return file;
 }
 
 /** Runs one sheet; a sandbox failure (timeout, memory, crash) comes back as the sheet's one error. */
 export async function runOne(sandbox: Sandbox, file: string, root: string): Promise<SheetResult> {
   try {
-    return await sandbox.run(readSheet(file), { path: resolve(file), root });
+    return await sandbox.run(readFileSync(file, 'utf8'), { path: resolve(file), root });
   } catch (e) {
     if (!(e instanceof SandboxError)) throw e;
     return failedResult(e.message);
@@ -52,13 +78,41 @@ export async function runOne(sandbox: Sandbox, file: string, root: string): Prom
 function failedResult(message: string): SheetResult {
   return {
     title: '', meta: {}, html: '', headerHtml: '', caution: false, parts: [], summaryHtml: '', elapsedMs: 0, reads: [], values: {}, checks: [], freshStatements: 0,
-    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, errors: 1 },
+    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 1 },
     errors: [{ line: 1, column: 1, message, code: 'limit' }],
   };
 }
 
 export function failing(r: SheetResult): boolean {
   return r.errors.length > 0 || r.checks.some((c) => !c.passed);
+}
+
+/**
+ * Writes an output file whole or not at all: into a temporary file beside the
+ * target, then renamed over it, so an existing file is only ever replaced by a
+ * complete one. A folder that does not exist, or a target that is a folder, is
+ * a usage error in one line.
+ */
+export function writeOutput(target: string, text: string): void {
+  const dir = dirname(resolve(target));
+  if (!existsSync(dir) || !statSync(dir).isDirectory()) throw new UsageError(`cannot write ${target}: the folder ${dirname(target)} does not exist`);
+  if (existsSync(target) && statSync(target).isDirectory()) throw new UsageError(`cannot write ${target}: it is a folder`);
+  const temp = join(dir, `.${basename(target)}.${process.pid}.tmp`);
+  try {
+    writeFileSync(temp, text);
+    renameSync(temp, target);
+  } catch (e) {
+    try {
+      unlinkSync(temp);
+    } catch {
+      // nothing was written
+    }
+    throw new UsageError(`cannot write ${target}: ${(e as NodeJS.ErrnoException).code === 'ENOSPC' ? 'the disk is full' : (e as Error).message}`);
+  }
+}
+
+export function version(): string {
+  return (JSON.parse(readFileSync(join(packageRoot(), 'package.json'), 'utf8')) as { version: string }).version;
 }
 
 export { Sandbox };

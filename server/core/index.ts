@@ -16,5 +16,6 @@ export { TradeError } from './shared/trade-error.js';
 export type { TradeFunction, ParamSpec, FieldSpec, CallContext, Args } from './shared/registry.js';
 export type * from './shared/values.js';
 export { escapeHtml } from './shared/escape.js';
+export { countText, nearestWord, nounFor, numberText } from './shared/words.js';
 export { bool, describeValue, figure, list, num, record, shown, si, str, table } from './shared/values.js';
-export { fieldRecord } from './shared/records.js';
+export { fieldRecord, withDeclaredSymbols } from './shared/records.js';

@@ -3,7 +3,7 @@
 // quantity parameters (a speed sweep gives a list of results).
 import { SheetError } from '../diagnostics.js';
 import type { Expr, Span } from '../parse/ast.js';
-import { ANY_DIMENSION, describeValue, TradeError, type ListValue, type ParamSpec, type TradeFunction, type Value } from '../core/index.js';
+import { ANY_DIMENSION, describeValue, nearestWord, TradeError, withDeclaredSymbols, type ListValue, type ParamSpec, type TradeFunction, type Value } from '../core/index.js';
 import { parseUnit, UnitError } from '../units/quantity.js';
 import { dimsEqual, isDimensionless } from '../units/dims.js';
 import { unitLabel } from '../units/labels.js';
@@ -11,37 +11,10 @@ import type { Scope } from './scope.js';
 
 type CallExpr = Extract<Expr, { type: 'call' }>;
 
-function closest(name: string, options: string[]): string | undefined {
-  let best: string | undefined;
-  let bestD = 3;
-  for (const o of options) {
-    const d = distance(name.toLowerCase(), o.toLowerCase());
-    if (d < bestD) {
-      bestD = d;
-      best = o;
-    }
-  }
-  return best;
-}
-
-function distance(a: string, b: string): number {
-  const row = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    let prev = row[0]!;
-    row[0] = i;
-    for (let j = 1; j <= b.length; j++) {
-      const cur = row[j]!;
-      row[j] = Math.min(row[j]! + 1, row[j - 1]! + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
-      prev = cur;
-    }
-  }
-  return row[b.length]!;
-}
-
 export function callTrade(e: CallExpr, scope: Scope, evalArg: (x: Expr) => Value): Value {
   const entry = scope.registry.get(e.callee);
   if (!entry) {
-    const hint = closest(e.callee, scope.registry.list().map((f) => f.name));
+    const hint = nearestWord(e.callee, scope.registry.list().map((f) => f.name));
     throw new SheetError('unknown-function', `there is no function "${e.callee}"${hint ? `; did you mean ${hint}?` : ''}`, e.calleeSpan);
   }
   const bound = bindArgs(entry, e, scope, evalArg);
@@ -71,7 +44,7 @@ function bindArgs(entry: TradeFunction, e: CallExpr, scope: Scope, evalArg: (x: 
     let name: string;
     if (a.name) {
       if (!names.includes(a.name)) {
-        const hint = closest(a.name, names);
+        const hint = nearestWord(a.name, names);
         throw new SheetError('bad-argument', `${entry.name}() has no parameter "${a.name}"${hint ? ` (did you mean ${hint}?)` : ''}; it takes ${names.join(', ')}`, a.span);
       }
       name = a.name;
@@ -148,7 +121,8 @@ function checkParam(entry: TradeFunction, p: ParamSpec, v: Value, span: Span): v
 function invoke(entry: TradeFunction, bound: Bound, span: Span, scope: Scope): Value {
   scope.budget.spend(10, span);
   try {
-    return entry.compute(bound.values, scope.context);
+    const v = entry.compute(bound.values, scope.context);
+    return entry.fields && v.kind === 'record' ? withDeclaredSymbols(v, entry.fields, entry.name) : v;
   } catch (err) {
     if (err instanceof SheetError) throw err.span ? err : new SheetError(err.code, err.message, span);
     if (err instanceof TradeError) {
@@ -173,5 +147,5 @@ function sweep(entry: TradeFunction, bound: Bound, span: Span, scope: Scope): Va
     for (const p of listed) values[p.name] = (bound.values[p.name] as ListValue).items[i];
     items.push(invoke(entry, { values, spans: bound.spans }, span, scope));
   }
-  return { kind: 'list', items };
+  return { kind: 'list', items, sweep: listed.map((p) => ({ name: p.name, values: (bound.values[p.name] as ListValue).items })) };
 }

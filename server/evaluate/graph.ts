@@ -28,6 +28,10 @@ export function namesUsed(e: Expr, out: NameUse[] = []): NameUse[] {
     case 'field':
       namesUsed(e.object, out);
       break;
+    case 'index':
+      namesUsed(e.object, out);
+      namesUsed(e.index, out);
+      break;
     case 'list':
       e.items.forEach((i) => namesUsed(i, out));
       break;

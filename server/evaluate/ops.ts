@@ -30,7 +30,9 @@ export function broadcast(a: Value, b: Value, span: Span, budget: Budget, f: (x:
     budget.spend(n, span);
     const items: Value[] = new Array(n);
     for (let i = 0; i < n; i++) items[i] = broadcast(la ? la[i]! : a, lb ? lb[i]! : b, span, budget, f);
-    return { kind: 'list', items } satisfies ListValue;
+    // Arithmetic on a sweep stays labelled by what was swept.
+    const sweep = (a.kind === 'list' ? a.sweep : undefined) ?? (b.kind === 'list' ? b.sweep : undefined);
+    return (sweep ? { kind: 'list', items, sweep } : { kind: 'list', items }) satisfies ListValue;
   }
   return f(a, b);
 }

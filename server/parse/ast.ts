@@ -20,6 +20,8 @@ export type Expr =
   | { readonly type: 'compare'; readonly ops: readonly CompareOp[]; readonly operands: readonly Expr[]; readonly span: Span }
   | { readonly type: 'call'; readonly callee: string; readonly calleeSpan: Span; readonly args: readonly Arg[]; readonly span: Span }
   | { readonly type: 'field'; readonly object: Expr; readonly field: string; readonly span: Span }
+  /** An item of a list: by position, `c[2]` (counting from 1), or by a swept input's value, `c[U: 20 m/s]`. */
+  | { readonly type: 'index'; readonly object: Expr; readonly index: Expr; readonly by?: string; readonly span: Span }
   | { readonly type: 'list'; readonly items: readonly Expr[]; readonly unit?: UnitNode; readonly span: Span }
   | { readonly type: 'convert'; readonly expr: Expr; readonly unit: UnitNode; readonly span: Span }
   | { readonly type: 'paren'; readonly expr: Expr; readonly span: Span };

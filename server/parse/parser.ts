@@ -196,13 +196,24 @@ function parsePower(c: Cursor): Expr {
 
 function parsePostfix(c: Cursor): Expr {
   let e = parseAtom(c);
-  while (c.at('.')) {
-    c.next();
-    const t = c.next();
-    if (t.type !== 'ident') throw unexpected(t, 'a field name after "."');
-    e = { type: 'field', object: e, field: t.text, span: join(e.span, t.span) };
+  for (;;) {
+    if (c.at('.')) {
+      c.next();
+      const t = c.next();
+      if (t.type !== 'ident') throw unexpected(t, 'a field name after "."');
+      e = { type: 'field', object: e, field: t.text, span: join(e.span, t.span) };
+    } else if (c.at('[') && !c.peek().spaced) {
+      c.next();
+      let by: string | undefined;
+      if (c.peek().type === 'ident' && c.peek(1).text === ':') {
+        by = c.next().text;
+        c.next();
+      }
+      const index = parseExpr(c);
+      const close = c.expect(']', 'a closing "]" after the index');
+      e = by === undefined ? { type: 'index', object: e, index, span: join(e.span, close.span) } : { type: 'index', object: e, index, by, span: join(e.span, close.span) };
+    } else return e;
   }
-  return e;
 }
 
 function parseAtom(c: Cursor): Expr {

@@ -6,7 +6,7 @@ import type { BrokenLine } from '../parse/index.js';
 import { isLiteral } from '../render/statement.js';
 import { sheetHeaderHtml, summaryHtml, type SummaryItem } from '../render/page.js';
 import type { SheetPart } from '../render/parts.js';
-import { valueJson, type ValueJson } from '../render/values.js';
+import { valueJson, type ValueJson } from '../render/value-json.js';
 import type { CheckJson, ErrorJson, SheetReport } from './types.js';
 
 export interface ReportInput {
@@ -37,8 +37,10 @@ export function buildReport(input: ReportInput): SheetReport {
   for (const d of input.broken) error(d.line, d.column, d.message, d.code);
   let inputs = 0;
   let results = 0;
+  let checksNotRun = 0;
   for (const r of evaluation.results) {
     if (r.error) error(r.error.line, r.error.column, r.error.message, r.error.code, r.stmt.line);
+    if (r.stmt.type === 'check' && r.passed === undefined) checksNotRun++;
     if (r.stmt.type === 'check' && r.passed !== undefined) {
       checks.push({ line: r.stmt.line, passed: r.passed, text: r.stmt.label ?? r.stmt.source.replace(/^check\s+/, '') });
       if (!r.passed) problems.push({ line: r.stmt.line, text: `check failed: ${r.stmt.label ?? r.stmt.source}`, kind: 'fail' });
@@ -61,6 +63,7 @@ export function buildReport(input: ReportInput): SheetReport {
     results,
     checksPassed: checks.filter((c) => c.passed).length,
     checksFailed: checks.filter((c) => !c.passed).length,
+    checksNotRun,
     errors: errors.length,
   };
   const caution = [...evaluation.values.values()].some(needsCaution) || input.meta.caution === 'true';

@@ -2,7 +2,7 @@
 // and the live server all hand on. Changing them is a public-API change.
 import type { SheetPart } from '../render/parts.js';
 import type { SheetSummary } from '../render/page.js';
-import type { ValueJson } from '../render/values.js';
+import type { ValueJson } from '../render/value-json.js';
 
 export type { SheetPart, SheetSummary, ValueJson };
 

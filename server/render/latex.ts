@@ -9,6 +9,8 @@ export interface LatexContext {
   sig: number;
   /** Present for the substituted form: the value of a name or field path. */
   valueFor?: (e: Expr) => Value | undefined;
+  /** The declared symbol of a record field (`wr.tau_w` → \tau_{w}), where the record is known. */
+  fieldSymbol?: (e: Extract<Expr, { type: 'field' }>) => string | undefined;
 }
 
 // A Map, not an object: callee names come from sheet text ("hasOwnProperty" …).
@@ -57,8 +59,13 @@ export function valueLatex(v: Value, sig: number): string | null {
     case 'string':
       return textLatex(`“${v.value}”`);
     case 'list': {
-      if (v.items.length > 6 || !v.items.every((i) => i.kind === 'quantity')) return null;
-      return `\\left[${v.items.map((i) => valueLatex(i, sig)).join(',\\ ')}\\right]`;
+      if (v.items.length === 0 || !v.items.every((i) => i.kind === 'quantity')) return null;
+      // A long list folds to its first and last items; the statement shows all of them below.
+      const long = v.items.length > 6;
+      const shown = long ? [...v.items.slice(0, 3), ...v.items.slice(-2)] : v.items;
+      const texts = shown.map((i) => valueLatex(i, sig)!);
+      if (long) texts.splice(3, 0, '\\ldots');
+      return `\\left[${texts.join(',\\ ')}\\right]${long ? `\\ (${v.items.length}\\text{ values})` : ''}`;
     }
     default:
       return null;
@@ -97,7 +104,10 @@ export function exprLatex(e: Expr, ctx: LatexContext): string {
         const tex = v ? valueLatex(v, ctx.sig) : null;
         if (tex) return tex;
       }
-      if (path) return path.length === 1 ? symbolLatex(path[0]!) : fieldLatex(path.slice(0, -1).join('_'), path[path.length - 1]!);
+      if (path) {
+        if (path.length === 1) return symbolLatex(path[0]!);
+        return fieldLatex(path.slice(0, -1).join('_'), path[path.length - 1]!, ctx.fieldSymbol?.(e as Extract<Expr, { type: 'field' }>));
+      }
       return `${sub((e as Extract<Expr, { type: 'field' }>).object)}.\\mathrm{${(e as Extract<Expr, { type: 'field' }>).field}}`;
     }
     case 'paren':
@@ -132,7 +142,10 @@ export function exprLatex(e: Expr, ctx: LatexContext): string {
       const args = e.args.map((a) => (a.name ? `${symbolLatex(a.name)}{=}${sub(a.value)}` : sub(a.value)));
       const special = FUNCS.get(e.callee);
       if (special && e.args.every((a) => !a.name)) return special(args);
-      return `\\operatorname{${e.callee.replace(/_/g, '\\_')}}\\left(${args.join(',\\ ')}\\right)`;
+      const name = `\\operatorname{${e.callee.replace(/_/g, '\\_')}}`;
+      // Plain brackets let a long call wrap after a comma; tall arguments need growing ones.
+      if (args.some((a) => a.includes('\\frac'))) return `${name}\\left(${args.join(',\\ ')}\\right)`;
+      return `${name}(${args.join(',\\allowbreak\\ ')})`;
     }
     case 'list': {
       const items = e.items.map(sub).join(',\\ ');
@@ -140,6 +153,13 @@ export function exprLatex(e: Expr, ctx: LatexContext): string {
     }
     case 'convert':
       return sub(e.expr);
+    case 'index': {
+      // The list itself is never substituted: its name and the index say which item.
+      const symbolic: LatexContext = ctx.fieldSymbol ? { sig: ctx.sig, fieldSymbol: ctx.fieldSymbol } : { sig: ctx.sig };
+      const by = e.by === undefined ? '' : `${symbolLatex(e.by)}{:}\\,`;
+      const object = exprLatex(e.object, symbolic);
+      return `${compound(e.object, symbolic) ? bracket(object) : object}\\lbrack ${by}${exprLatex(e.index, symbolic)}\\rbrack`;
+    }
   }
   return '';
 }

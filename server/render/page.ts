@@ -1,5 +1,6 @@
 // The page around a sheet: header with the front matter, the summary, the
 // sheet's own content in one <main>, and the planning caution where due.
+import { nounFor } from '../core/index.js';
 import { escapeHtml } from './html.js';
 import type { SheetPart } from './parts.js';
 
@@ -8,6 +9,8 @@ export interface SheetSummary {
   results: number;
   checksPassed: number;
   checksFailed: number;
+  /** Checks that could not run: their expression failed, or waits on a failure. */
+  checksNotRun: number;
   errors: number;
 }
 
@@ -19,11 +22,12 @@ export interface SummaryItem {
 
 export function summaryHtml(s: SheetSummary, items: SummaryItem[]): string {
   const state = s.errors > 0 ? 'has-errors' : s.checksFailed > 0 ? 'has-failures' : 'all-clear';
-  const cell = (n: number, label: string, cls: string) => `<div class="ws-count ${cls}" data-count="${cls}"><span class="ws-n">${n}</span> ${label}</div>`;
+  const cell = (n: number, singular: string, plural: string, cls: string) => `<div class="ws-count ${cls}" data-count="${cls}"><span class="ws-n">${n}</span> ${escapeHtml(nounFor(n, singular, plural))}</div>`;
   const list = items.length
     ? `<ol class="ws-problems">${items.map((i) => `<li class="ws-${i.kind}"><a href="#L${i.line}">line ${i.line}</a> ${escapeHtml(i.text)}</li>`).join('')}</ol>`
     : '';
-  return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'inputs', 'inputs')}${cell(s.results, 'results', 'results')}${cell(s.checksPassed, 'checks passed', 'passed')}${cell(s.checksFailed, 'checks failed', 'failed')}${cell(s.errors, 'errors', 'errors')}${list}</section>`;
+  const notRun = s.checksNotRun > 0 ? cell(s.checksNotRun, 'check not run', 'checks not run', 'not-run') : '';
+  return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'input', 'inputs', 'inputs')}${cell(s.results, 'result', 'results', 'results')}${cell(s.checksPassed, 'check passed', 'checks passed', 'passed')}${cell(s.checksFailed, 'check failed', 'checks failed', 'failed')}${notRun}${cell(s.errors, 'error', 'errors', 'errors')}${list}</section>`;
 }
 
 export function headerHtml(title: string, meta: Record<string, string>): string {

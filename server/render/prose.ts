@@ -29,7 +29,8 @@ export function sanitize(html: string): string {
 
 export function proseHtml(tokens: Token[], links: TokensList['links']): string {
   const list = Object.assign([...tokens], { links }) as TokensList;
-  return sanitize(new Parser({ gfm: true }).parse(list));
+  // A wide table scrolls inside the column instead of widening the page.
+  return sanitize(new Parser({ gfm: true }).parse(list)).replace(/<table>/g, '<div class="ws-table-wrap"><table>').replace(/<\/table>/g, '</table></div>');
 }
 
 /** Inline `=expr` code spans in rendered prose, as [whole match, decoded expression]. */

@@ -5,9 +5,9 @@ import type { Value } from '../core/index.js';
 import type { StatementResult } from '../evaluate/sheet-eval.js';
 import { attrs, escapeHtml } from './html.js';
 import { chainHtml, mathHtml } from './katex.js';
-import { exprLatex, valueLatex } from './latex.js';
+import { exprLatex, valueLatex, type LatexContext } from './latex.js';
 import { symbolLatex } from './symbols.js';
-import { dataAttrs, displayText, valueHtml } from './values.js';
+import { allItemsHtml, dataAttrs, displayText, FOLD_AFTER, valueHtml } from './values.js';
 
 export interface StatementView {
   sig: number;
@@ -29,6 +29,7 @@ function hasNames(e: Expr): boolean {
   switch (e.type) {
     case 'name':
     case 'field':
+    case 'index':
       return true;
     case 'unary':
       return hasNames(e.arg);
@@ -59,11 +60,26 @@ function valueOfFactory(view: StatementView) {
   };
 }
 
+/** The declared symbol of a field, read from the record (or the first record of a sweep) it belongs to. */
+function fieldSymbolFactory(view: StatementView) {
+  const valueOf = valueOfFactory(view);
+  return (e: Extract<Expr, { type: 'field' }>): string | undefined => {
+    const owner = valueOf(e.object);
+    const record = owner?.kind === 'list' ? owner.items[0] : owner;
+    return record?.kind === 'record' ? record.fields.get(e.field)?.symbol : undefined;
+  };
+}
+
+/** The LaTeX context of a statement's symbolic form. */
+function symbolicContext(view: StatementView): LatexContext {
+  return { sig: view.sig, fieldSymbol: fieldSymbolFactory(view) };
+}
+
 /** Does substituting values say more than the symbols (and stay readable)? */
 function substituted(e: Expr, view: StatementView): string | null {
   if (!hasNames(e) || e.type === 'name' || e.type === 'field') return null;
   if (e.type === 'call' && e.args.some((a) => a.value.type === 'name' && view.values.get(a.value.name)?.kind === 'record')) return null;
-  return exprLatex(e, { sig: view.sig, valueFor: valueOfFactory(view) });
+  return exprLatex(e, { ...symbolicContext(view), valueFor: valueOfFactory(view) });
 }
 
 function warningsHtml(r: StatementResult): string {
@@ -98,9 +114,11 @@ export function lastGoodHtml(name: string | undefined, view: StatementView): str
 }
 
 function resultLatexOrBlock(name: string, v: Value, view: StatementView): { inline?: string; block?: string } {
-  const tex = v.kind === 'quantity' || v.kind === 'bool' || v.kind === 'string' ? valueLatex(v, view.sig) : null;
-  if (tex) return { inline: tex };
-  return { block: valueHtml(name, v, view.sig) };
+  const tex = v.kind === 'quantity' || v.kind === 'bool' || v.kind === 'string' || v.kind === 'list' ? valueLatex(v, view.sig) : null;
+  if (!tex) return { block: valueHtml(name, v, view.sig) };
+  // A long list is folded in the formula; every item is a click away below it.
+  if (v.kind === 'list' && v.items.length > FOLD_AFTER) return { inline: tex, block: allItemsHtml(v, view.sig) };
+  return { inline: tex };
 }
 
 function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'define' }> }, view: StatementView): string {
@@ -111,16 +129,16 @@ function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'def
   const data = r.value && !r.error && !r.blockedBy && !r.skipped ? dataAttrs(s.name, r.value) : attrs({ 'data-name': s.name, 'data-state': r.error ? 'error' : 'not-evaluated' });
   const head = `<div class="ws-stmt ws-def ${cls}"${attrs({ 'data-line': s.line, id: `v-${s.name}` })}${data}`;
   if (r.error) {
-    const formula = mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`);
+    const formula = mathHtml(`${sym} = ${exprLatex(s.expr, symbolicContext(view))}`);
     return `${head}><div class="ws-formula">${formula}</div>${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}${lastGoodHtml(s.name, view)}</div>`;
   }
   if (r.blockedBy || r.skipped) {
-    return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, { sig: view.sig })}`)}</div>${blockedHtml(r)}${r.skipped ? '' : lastGoodHtml(s.name, view)}</div>`;
+    return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, symbolicContext(view))}`)}</div>${blockedHtml(r)}${r.skipped ? '' : lastGoodHtml(s.name, view)}</div>`;
   }
   const v = r.value!;
   const { inline, block } = resultLatexOrBlock(s.name, v, view);
   const parts: string[] = [sym];
-  if (!literal || !inline) parts.push(exprLatex(s.expr, { sig: view.sig }));
+  if (!literal || !inline) parts.push(exprLatex(s.expr, symbolicContext(view)));
   const subst = literal ? null : substituted(s.expr, view);
   if (subst && subst !== parts[parts.length - 1]) parts.push(subst);
   if (inline && (!literal || parts.length === 1)) parts.push(inline);
@@ -132,7 +150,7 @@ function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'def
 
 function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'check' }> }, view: StatementView): string {
   const s = r.stmt;
-  const symbolic = exprLatex(s.expr, { sig: view.sig });
+  const symbolic = exprLatex(s.expr, symbolicContext(view));
   const subst = substituted(s.expr, view);
   const formula = chainHtml(symbolic, subst && subst !== symbolic ? [subst] : [], '\\quad\\Longrightarrow\\quad');
   const label = s.label ? `<span class="ws-label">${escapeHtml(s.label)}</span>` : '';
@@ -145,7 +163,7 @@ function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'chec
 
 function exprHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'expr' }> }, view: StatementView): string {
   const s = r.stmt;
-  const symbolic = exprLatex(s.expr, { sig: view.sig });
+  const symbolic = exprLatex(s.expr, symbolicContext(view));
   const name = s.source;
   if (r.error) return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}>${mathHtml(symbolic)}${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
   if (r.blockedBy || r.skipped) return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}>${mathHtml(symbolic)}${blockedHtml(r)}</div>`;

@@ -52,15 +52,30 @@ export function symbolLatex(name: string): string {
 }
 
 /** LaTeX for a record field: air.nu → ν_air, wr.height → height_wr. */
-export function fieldLatex(object: string, field: string): string {
+export function fieldLatex(object: string, field: string, declared?: string): string {
   const parts = object.split('_').filter((p) => p !== '');
   const sub = parts.map(subscript).join(',');
+  if (declared) return withOwner(declared, sub);
   const f = symbolLatex(field);
   // A field that already carries a subscript keeps it and adds the owner's.
   const m = /^\{(.*)\}_\{(.*)\}$/.exec(f);
   if (m) return `{${m[1]}}_{${m[2]},${sub}}`;
   if (f.endsWith('^{+}')) return `{${f.slice(0, -4)}}_{${sub}}^{+}`;
   return `{${f}}_{${sub}}`;
+}
+
+/**
+ * A declared symbol with its owner's name added to the subscript:
+ * \tau_{w} of wr → \tau_{w,wr}; \delta^{*} of bl → \delta^{*}_{bl}.
+ */
+function withOwner(symbol: string, sub: string): string {
+  const braced = /^(.*)_\{([^{}]*)\}(\^\{[^{}]*\})?$/.exec(symbol);
+  if (braced) return `${braced[1]}_{${braced[2]},${sub}}${braced[3] ?? ''}`;
+  const single = /^(.*)_([A-Za-z0-9])(\^\{[^{}]*\})?$/.exec(symbol);
+  if (single) return `${single[1]}_{${single[2]},${sub}}${single[3] ?? ''}`;
+  const sup = /^([^_]*)(\^\{[^{}]*\})$/.exec(symbol);
+  if (sup) return `{${sup[1]}}_{${sub}}${sup[2]}`;
+  return `{${symbol}}_{${sub}}`;
 }
 
 export function textLatex(s: string): string {

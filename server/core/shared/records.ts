@@ -25,3 +25,19 @@ export function fieldRecord(
   return { ...record([], init), fields };
 }
 
+
+/**
+ * The record with each field's symbol from the declared field list (symbols
+ * a field already has are kept). Where a record field is not declared, the
+ * entry's list is incomplete: a fault of ours, named as such.
+ */
+export function withDeclaredSymbols(r: RecordValue, specs: readonly FieldSpec[], fn: string): RecordValue {
+  const bySpec = new Map(specs.map((s) => [s.name, s]));
+  const fields = new Map<string, RecordField>();
+  for (const [name, f] of r.fields) {
+    const spec = bySpec.get(name);
+    if (!spec) throw new Error(`${fn}() returned a field ${name} that its field list does not declare`);
+    fields.set(name, f.symbol ? f : { ...f, symbol: spec.symbol });
+  }
+  return { ...r, fields };
+}

@@ -20,6 +20,19 @@ export interface StringValue {
 export interface ListValue {
   readonly kind: 'list';
   readonly items: readonly Value[];
+  /**
+   * Set when the list is a sweep: a trade function given a list for one or
+   * more of its inputs. Each swept input with its value for every item, so
+   * that the list can be shown as one table labelled by them and indexed by value.
+   */
+  readonly sweep?: readonly SweepInput[];
+}
+
+export interface SweepInput {
+  /** The parameter that varied. */
+  readonly name: string;
+  /** Its value for each item, in order. */
+  readonly values: readonly Value[];
 }
 
 export interface RecordField {
@@ -82,8 +95,8 @@ export function bool(value: boolean): BoolValue {
   return { kind: 'bool', value };
 }
 
-export function list(items: Value[]): ListValue {
-  return { kind: 'list', items };
+export function list(items: Value[], sweep?: readonly SweepInput[]): ListValue {
+  return sweep ? { kind: 'list', items, sweep } : { kind: 'list', items };
 }
 
 export function table(columns: string[], rows: Value[][]): TableValue {

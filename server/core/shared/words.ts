@@ -53,3 +53,41 @@ export function percentText(fraction: number, digits = 3): string {
 export function quotedList(words: readonly string[]): string {
   return words.map((w) => `"${w}"`).join(', ');
 }
+
+/** "1 sheet", "3 sheets", "0 errors": a count with its noun, plural where due. */
+export function countText(n: number, singular: string, plural = `${singular}s`): string {
+  return `${n} ${nounFor(n, singular, plural)}`;
+}
+
+/** The noun for a count: "error" for 1, "errors" otherwise. */
+export function nounFor(n: number, singular: string, plural = `${singular}s`): string {
+  return n === 1 ? singular : plural;
+}
+
+/** The option nearest to `word` by edit distance (at most 2 edits, case ignored), for "did you mean" hints. */
+export function nearestWord(word: string, options: readonly string[]): string | undefined {
+  let best: string | undefined;
+  let bestD = 3;
+  for (const o of options) {
+    const d = editDistance(word.toLowerCase(), o.toLowerCase());
+    if (d < bestD) {
+      bestD = d;
+      best = o;
+    }
+  }
+  return best;
+}
+
+function editDistance(a: string, b: string): number {
+  const row = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    let prev = row[0]!;
+    row[0] = i;
+    for (let j = 1; j <= b.length; j++) {
+      const cur = row[j]!;
+      row[j] = Math.min(row[j]! + 1, row[j - 1]! + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
+      prev = cur;
+    }
+  }
+  return row[b.length]!;
+}

@@ -1,0 +1,75 @@
+// A value as `wakesheet eval --json` and the library hand it on: SI numbers,
+// the SI unit, and the display text; records with their fields, lists with
+// their items, and tables (and sweeps of records) as columns and rows.
+import type { ListValue, RecordValue, Value } from '../core/index.js';
+import { unitLabel } from '../units/labels.js';
+import { displayText } from './value-text.js';
+
+/** A value as `wakesheet eval --json` and the library hand it on. */
+export interface ValueJson {
+  /** SI value; null for text, booleans, records, figures. */
+  si: number | null;
+  /** SI unit text ("m/s", "Pa s", "" for plain numbers). */
+  unit: string;
+  /** As rendered, e.g. "23 µm". */
+  display: string;
+  fields?: Record<string, ValueJson>;
+  items?: ValueJson[];
+  /** Tables, and lists of records (a sweep: the swept inputs first), as columns and rows. */
+  table?: { columns: string[]; rows: ValueJson[][] };
+}
+
+/** Lists longer than this leave out their items in JSON (the display still tells). */
+export const JSON_ITEMS_MAX = 10_000;
+
+// Values are immutable and reused across runs, so their JSON is too.
+const jsonCache = new WeakMap<Value, { sig: number; json: ValueJson }>();
+
+export function valueJson(v: Value, sig: number): ValueJson {
+  const hit = jsonCache.get(v);
+  if (hit && hit.sig === sig) return hit.json;
+  const json = computeJson(v, sig);
+  jsonCache.set(v, { sig, json });
+  return json;
+}
+
+function computeJson(v: Value, sig: number): ValueJson {
+  const display = displayText(v, sig);
+  switch (v.kind) {
+    case 'quantity':
+      return { si: v.si, unit: unitLabel(v.dims), display };
+    case 'list': {
+      if (v.items.length > JSON_ITEMS_MAX) return { si: null, unit: '', display };
+      const json: ValueJson = { si: null, unit: '', display, items: v.items.map((i) => valueJson(i, sig)) };
+      if (v.items.length > 0 && v.items.every((i) => i.kind === 'record')) json.table = recordListJson(v, sig);
+      return json;
+    }
+    case 'table':
+      return { si: null, unit: '', display, table: { columns: [...v.columns], rows: v.rows.map((row) => row.map((c) => valueJson(c, sig))) } };
+    case 'record': {
+      const fields: Record<string, ValueJson> = {};
+      for (const [k, f] of v.fields) fields[k] = valueJson(f.value, sig);
+      return { si: null, unit: '', display, fields };
+    }
+    default:
+      return { si: null, unit: '', display };
+  }
+}
+
+
+/** A list of records as columns and rows: the swept inputs (or the item number), then the fields. */
+function recordListJson(list: ListValue, sig: number): { columns: string[]; rows: ValueJson[][] } {
+  const records = list.items as readonly RecordValue[];
+  const fields: string[] = [];
+  for (const r of records) for (const [k, f] of r.fields) if (!fields.includes(k) && f.value.kind !== 'figure') fields.push(k);
+  const inputs = list.sweep?.map((s) => s.name) ?? ['#'];
+  const empty: ValueJson = { si: null, unit: '', display: '' };
+  const rows = records.map((r, i) => [
+    ...(list.sweep ? list.sweep.map((s) => valueJson(s.values[i]!, sig)) : [{ si: i + 1, unit: '', display: String(i + 1) }]),
+    ...fields.map((k) => {
+      const f = r.fields.get(k);
+      return f ? valueJson(f.value, sig) : empty;
+    }),
+  ]);
+  return { columns: [...inputs, ...fields], rows };
+}
