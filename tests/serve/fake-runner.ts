@@ -16,7 +16,7 @@ export function fakeResult(fields: Partial<SheetResult>): SheetResult {
     html: '',
     parts: [],
     summaryHtml: '',
-    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, errors: 0 },
+    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 0 },
     values: {},
     checks: [],
     errors: [],
@@ -44,7 +44,7 @@ export class ParagraphRunner implements SheetRunner {
       title: /^# (.*)$/m.exec(text)?.[1] ?? path.basename(opts.path ?? 'sheet.md', '.md'),
       parts,
       summaryHtml: `<section class="ws-summary">${paragraphs.length} paragraphs</section>`,
-      summary: { inputs: 0, results: 0, checksPassed: 1, checksFailed: failed, errors: 0 },
+      summary: { inputs: 0, results: 0, checksPassed: 1, checksFailed: failed, checksNotRun: 0, errors: 0 },
       reads,
       elapsedMs: 1,
     });
