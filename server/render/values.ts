@@ -109,6 +109,11 @@ function recordHtml(name: string, r: RecordValue, sig: number): string {
   const owner = name.replace(/\[\d+\]$/, '');
   const rows = [...r.fields].map(([field, f]) => {
     const v = f.value;
+    // A table inside a record takes the row's full width, its note under it.
+    if (v.kind === 'table') {
+      const note = f.note ? `<div class="ws-note">${escapeHtml(f.note)}</div>` : '';
+      return `<tr><td class="ws-field">${escapeHtml(field)}</td><td class="ws-wide" colspan="4">${tableHtml(`${name}.${field}`, v, sig)}${note}</td></tr>`;
+    }
     const sym = v.kind === 'quantity' ? mathHtml(f.symbol ?? fieldLatex(owner, field)) : '';
     let value: string;
     let unit = '';
@@ -116,7 +121,7 @@ function recordHtml(name: string, r: RecordValue, sig: number): string {
       const s = showQuantity(v, sig);
       value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(shownPlain({ ...s, unit: '' }))}</span>`;
       unit = s.unit === '%' ? '%' : escapeHtml(unitPlain(s.unit));
-    } else if (v.kind === 'figure' || v.kind === 'record' || v.kind === 'table') {
+    } else if (v.kind === 'figure' || v.kind === 'record') {
       value = valueHtml(`${name}.${field}`, v, sig);
     } else {
       value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(displayText(v, sig))}</span>`;
