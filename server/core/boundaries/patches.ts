@@ -28,7 +28,7 @@ export interface Condition {
 export const CONDITIONS: Readonly<Record<PatchKind, Condition>> = {
   wall: { label: 'no-slip wall', flow: 'none', fixesVelocity: true, fixesPressure: false, meaning: 'The fluid sticks to the wall: velocity zero at the surface.' },
   moving_wall: { label: 'no-slip wall, moving', flow: 'none', fixesVelocity: true, fixesPressure: false, meaning: 'The fluid moves with the wall, which slides in its own plane (a moving ground or belt).' },
-  rotating_wall: { label: 'no-slip wall, rotating', flow: 'none', fixesVelocity: true, fixesPressure: false, meaning: 'The fluid moves with the surface of a body turning about a fixed axis (a wheel), velocity ω × r; the mesh itself stays put.' },
+  rotating_wall: { label: 'no-slip wall, rotating', flow: 'none', fixesVelocity: true, fixesPressure: false, meaning: 'The fluid moves with the surface of a body turning about a fixed axis (a wheel), velocity Ω × r; the mesh itself stays put.' },
   slip: { label: 'slip wall', flow: 'none', fixesVelocity: false, fixesPressure: false, meaning: 'No flow through the patch and no shear on it: the flow slides along.' },
   symmetry: { label: 'symmetry plane', flow: 'none', fixesVelocity: false, fixesPressure: false, meaning: 'A mirror plane: no flow through it and zero normal gradient of every other quantity.' },
   velocity_inlet: { label: 'velocity inlet', flow: 'in', fixesVelocity: true, fixesPressure: false, meaning: 'Velocity and turbulence are held; the pressure follows from the interior.' },
