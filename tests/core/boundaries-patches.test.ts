@@ -147,6 +147,9 @@ describe('the boundary table', () => {
     const far = runRecord('boundaries([velocity_inlet("inlet", 20 m/s, distance: 40 m), pressure_outlet("outlet", distance: 180 m)], domain: d)', { d: domain });
     expect(far.warnings).toHaveLength(1);
     expect(far.warnings[0]).toMatch(/the inlet "inlet" is 40 m from the body, closer than the 60 m upstream/);
+    // An opening at the top, nearer than the downstream length, is not an outlet held to it.
+    const top = runRecord('boundaries([velocity_inlet("inlet", 20 m/s, distance: 60 m), pressure_outlet("outlet", distance: 180 m), opening("top", distance: 60 m)], domain: d)', { d: domain });
+    expect(top.warnings).toEqual([]);
     const unplaced = runRecord('boundaries([velocity_inlet("inlet", 20 m/s), pressure_outlet("outlet")], domain: d)', { d: domain });
     expect(unplaced.warnings).toEqual([]);
     expect(unplaced.remarks.join(' ')).toMatch(/"outlet": no distance given, so not checked against the 180 m downstream/);
@@ -160,6 +163,9 @@ describe('the boundary table', () => {
     const bad = runRecord(`boundaries([velocity_inlet("inlet", 30 m/s), pressure_outlet("outlet"), ${road}, rotating_wall("wheel", rim: 30 m/s, radius: 0.33 m, axis: [0, 1, 0])])`);
     expect(bad.warnings).toHaveLength(1);
     expect(bad.warnings[0]).toMatch(/lowest point of "wheel" moves at \(−30, 0, 0\) m\/s, the ground "road" at \(30, 0, 0\) m\/s: the wheel slips/);
+    // A fan turning about the vertical is no wheel: not checked against the road.
+    const fan = runRecord(`boundaries([velocity_inlet("inlet", 30 m/s), pressure_outlet("outlet"), ${road}, rotating_wall("fan", 900 rpm, axis: [0, 0, 1], radius: 0.2 m)])`);
+    expect(fan.warnings).toEqual([]);
     const slow = runRecord(`boundaries([velocity_inlet("inlet", 30 m/s), pressure_outlet("outlet"), ${road}, rotating_wall("wheel", rim: 29 m/s, radius: 0.33 m)])`);
     expect(slow.warnings.join(' ')).toMatch(/slips/);
   });

@@ -63,7 +63,7 @@ const inlet_turbulence: TradeFunction = {
     const Cmu = siArg(args, 'C_mu');
     const t = inletTurbulence(U, I, length !== undefined ? { length } : { ratio: ratio! }, nu, Cmu);
     const warnings: string[] = [];
-    if (I > HIGH_INTENSITY) warnings.push(`an intensity of ${percentText(I)} is above about ${percentText(HIGH_INTENSITY)}, high even for a turbulent inflow (common practice); check that it is not a fraction written as a percentage.`);
+    if (I > HIGH_INTENSITY) warnings.push(`an intensity of ${percentText(I)} is above about ${percentText(HIGH_INTENSITY)}, high even for a turbulent inflow (common practice); check the value and its source.`);
     const remarks = [
       t.given === 'length'
         ? `Length scale given; the eddy-viscosity ratio ν_t/ν = ${numberText(t.nut_ratio)} follows from ν_t = k/ω.`
@@ -420,10 +420,6 @@ function inflowArg(args: Args): Inflow {
   throw new TradeError('turbulence must be a record from inlet_turbulence(...) (with k and ε or ω) or abl(...) (with u_star)');
 }
 
-function gaugeArg(args: Args, name: string): number {
-  return siArg(args, name, 'Pa');
-}
-
 function positiveOptional(args: Args, name: string, unit: string, what: string): number | undefined {
   const v = optionalSi(args, name, unit);
   if (v !== undefined && !(v > 0)) throw new TradeError(`${what} must be above zero`);
@@ -533,7 +529,7 @@ const pressure_inlet = patchEntry(
   (args, name) => {
     const inflow = inflowArg(args);
     if (inflow.profile) throw new TradeError('an atmospheric profile goes on a velocity_inlet; a pressure inlet takes inlet_turbulence(...) values');
-    const patch: Patch = { name, kind: 'pressure_inlet', p: gaugeArg(args, 'p0'), direction: unitVectorArg(args, 'direction'), distance: positiveOptional(args, 'distance', 'm', 'the distance') };
+    const patch: Patch = { name, kind: 'pressure_inlet', p: siArg(args, 'p0', 'Pa'), direction: unitVectorArg(args, 'direction'), distance: positiveOptional(args, 'distance', 'm', 'the distance') };
     if (inflow.turbulence) patch.turbulence = inflow.turbulence;
     return { patch };
   },
@@ -544,7 +540,7 @@ const pressure_outlet = patchEntry(
   [{ name: 'p', type: 'quantity', unit: 'Pa', default: '0 Pa', doc: 'static pressure, gauge (relative to the operating pressure)' }, DISTANCE],
   'a static-pressure outlet',
   'pressure_outlet("outlet")',
-  (args, name) => ({ patch: { name, kind: 'pressure_outlet', p: gaugeArg(args, 'p'), distance: positiveOptional(args, 'distance', 'm', 'the distance') } }),
+  (args, name) => ({ patch: { name, kind: 'pressure_outlet', p: siArg(args, 'p', 'Pa'), distance: positiveOptional(args, 'distance', 'm', 'the distance') } }),
 );
 
 const flow_rate_outlet = patchEntry(
@@ -567,7 +563,7 @@ const opening = patchEntry(
   (args, name) => {
     const inflow = inflowArg(args);
     if (inflow.profile) throw new TradeError('an atmospheric profile goes on a velocity_inlet; an opening takes inlet_turbulence(...) values for its inflow');
-    const patch: Patch = { name, kind: 'opening', p: gaugeArg(args, 'p'), distance: positiveOptional(args, 'distance', 'm', 'the distance') };
+    const patch: Patch = { name, kind: 'opening', p: siArg(args, 'p', 'Pa'), distance: positiveOptional(args, 'distance', 'm', 'the distance') };
     if (inflow.turbulence) patch.turbulence = inflow.turbulence;
     return { patch };
   },

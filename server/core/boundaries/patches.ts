@@ -205,7 +205,8 @@ function distanceWarnings(open: readonly Patch[], domain: DomainRule, remarks: s
   const warnings: string[] = [];
   const rule = domain.rule ? ` (${domain.rule})` : '';
   const sides: Array<[Patch['kind'][], number | undefined, string, string]> = [
-    [['pressure_outlet', 'flow_rate_outlet', 'opening'], domain.downstream, 'outlet', 'downstream'],
+    // An opening may sit at the side or the top, so only outlets proper are held to the downstream length.
+    [['pressure_outlet', 'flow_rate_outlet'], domain.downstream, 'outlet', 'downstream'],
     [['velocity_inlet', 'pressure_inlet'], domain.upstream, 'inlet', 'upstream'],
   ];
   for (const [kinds, asked, what, side] of sides) {
@@ -230,14 +231,15 @@ function names(list: readonly Patch[]): string {
 
 /**
  * A wheel touching a moving ground rolls without slip when its lowest point
- * (origin − r ẑ, z up) moves with the ground: ω × (−r ẑ) = U_ground.
+ * (origin − r ẑ, z up) moves with the ground: Ω × (−r ẑ) = U_ground. Only a
+ * rotating wall with a radius and a horizontal axis is taken for a wheel.
  */
 function wheelWarnings(patches: readonly Patch[]): string[] {
   const grounds = patches.filter((p) => p.kind === 'moving_wall');
   if (grounds.length === 0) return [];
   const warnings: string[] = [];
   for (const w of patches) {
-    if (w.kind !== 'rotating_wall' || w.spin?.radius === undefined) continue;
+    if (w.kind !== 'rotating_wall' || w.spin?.radius === undefined || Math.abs(w.spin.axis[2]) > 1e-6) continue;
     const { omega, axis, radius } = w.spin;
     const contact = cross([axis[0] * omega, axis[1] * omega, axis[2] * omega], [0, 0, -radius]);
     const matches = grounds.some((g) => {
