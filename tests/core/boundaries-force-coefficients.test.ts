@@ -1,6 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { ISA_RHO, relErr, run, runRecord, siField } from './boundaries-helpers.js';
 
+// Checks worked by hand from the definitions C = F/(q A), q = ½ρU², C_M = M/(q A l_ref)
+// (e.g. Hucho, Aerodynamics of Road Vehicles, 4th ed., 1998, from memory), with the air
+// density of the U.S. Standard Atmosphere 1976 at sea level.
+
 describe('force coefficients', () => {
   it('divides each force component by q A, q = ½ρU² (definition; sea-level air, USSA 1976 ρ = 1.2250 kg/m³)', () => {
     const q = 0.5 * ISA_RHO * 30 * 30;
