@@ -36,18 +36,23 @@ function recordHtml(name: string, r: RecordValue, sig: number): string {
     const v = f.value;
     // The field's declared symbol, and the name a sheet writes it by.
     const sym = f.symbol ? mathHtml(f.symbol) : '';
+    const label = sym ? `<span class="ws-sym">${sym}</span><code class="ws-field-name">${escapeHtml(field)}</code>` : `<code class="ws-field-name">${escapeHtml(field)}</code>`;
+    // A table inside a record takes the row's full width, its note under it.
+    if (v.kind === 'table') {
+      const note = f.note ? `<div class="ws-note">${escapeHtml(f.note)}</div>` : '';
+      return `<tr><td class="ws-field">${label}</td><td class="ws-wide" colspan="3">${tableHtml(`${name}.${field}`, v, sig)}${note}</td></tr>`;
+    }
     let value: string;
     let unit = '';
     if (v.kind === 'quantity') {
       const s = showQuantity(v, sig);
       value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(shownPlain({ ...s, unit: '' }))}</span>`;
       unit = s.unit === '%' ? '%' : escapeHtml(unitPlain(s.unit));
-    } else if (v.kind === 'figure' || v.kind === 'record' || v.kind === 'table' || v.kind === 'list') {
+    } else if (v.kind === 'figure' || v.kind === 'record' || v.kind === 'list') {
       value = valueHtml(`${name}.${field}`, v, sig);
     } else {
       value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(displayText(v, sig))}</span>`;
     }
-    const label = sym ? `<span class="ws-sym">${sym}</span><code class="ws-field-name">${escapeHtml(field)}</code>` : `<code class="ws-field-name">${escapeHtml(field)}</code>`;
     return `<tr><td class="ws-field">${label}</td><td class="ws-num">${value}</td><td class="ws-unit">${unit}</td><td class="ws-note">${escapeHtml(f.note ?? '')}</td></tr>`;
   });
   const warnings = r.warnings.length ? `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
