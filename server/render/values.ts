@@ -116,10 +116,14 @@ function recordHtml(name: string, r: RecordValue, sig: number): string {
       const s = showQuantity(v, sig);
       value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(shownPlain({ ...s, unit: '' }))}</span>`;
       unit = s.unit === '%' ? '%' : escapeHtml(unitPlain(s.unit));
-    } else if (v.kind === 'figure' || v.kind === 'record' || v.kind === 'table') {
+    } else if (v.kind === 'table') {
+      // A table field takes a row of its own, so its width does not squeeze the other fields' notes.
+      const head = `<div class="ws-nested-head"><span class="ws-field">${escapeHtml(field)}</span>${f.note ? ` <span class="ws-note">${escapeHtml(f.note)}</span>` : ''}</div>`;
+      return `<tr><td class="ws-nested" colspan="5">${head}${valueHtml(`${name}.${field}`, v, sig)}</td></tr>`;
+    } else if (v.kind === 'figure' || v.kind === 'record') {
       value = valueHtml(`${name}.${field}`, v, sig);
     } else {
-      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(displayText(v, sig))}</span>`;
+      value = `<span class="ws-value${v.kind === 'list' ? ' ws-list' : ''}"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(displayText(v, sig))}</span>`;
     }
     return `<tr><td class="ws-field">${escapeHtml(field)}</td><td class="ws-sym">${sym}</td><td class="ws-num">${value}</td><td class="ws-unit">${unit}</td><td class="ws-note">${escapeHtml(f.note ?? '')}</td></tr>`;
   });
