@@ -3,10 +3,14 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { benchDomain, printDomain } from './domain.js';
 import { benchLive, printLive } from './live.js';
 
 const out = path.join(path.dirname(fileURLToPath(import.meta.url)), 'out');
 const live = await benchLive();
 printLive(live);
+const domain = await benchDomain();
+printDomain(domain);
 await mkdir(out, { recursive: true });
 await writeFile(path.join(out, 'live.json'), JSON.stringify({ at: new Date().toISOString(), live }, null, 2));
+await writeFile(path.join(out, 'domain.json'), JSON.stringify({ at: new Date().toISOString(), domain }, null, 2));

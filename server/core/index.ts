@@ -1,12 +1,13 @@
 // The trade library: every family's entries in one registry. A family is a
 // folder of pure maths files and one entries.ts; add a new family here.
 import { boundaryEntries } from './boundaries/entries.js';
+import { domainEntries } from './domain/entries.js';
 import { fluidEntries } from './fluids/entries.js';
 import { mathsEntries } from './maths/entries.js';
 import { Registry, type TradeFunction } from './shared/registry.js';
 import { wallEntries } from './wall/entries.js';
 
-export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsEntries, fluidEntries, wallEntries, boundaryEntries];
+export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsEntries, fluidEntries, wallEntries, domainEntries, boundaryEntries];
 
 export function createRegistry(): Registry {
   return new Registry(families.flat());
