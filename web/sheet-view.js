@@ -7,6 +7,9 @@ import { localiseTimes } from './status.js';
 /** @typedef {import('../server/serve/protocol.js').SheetCondition} SheetCondition */
 /** @typedef {import('../server/serve/protocol.js').ServerMessage} ServerMessage */
 
+/** Updates this far apart count as a pause: the sheet is laid out whole again. */
+const REST_AFTER_MS = 2000;
+
 /**
  * @param {ReturnType<typeof import('./status.js').createStatus>} status
  * @param {(message: import('../server/serve/protocol.js').ClientMessage) => void} send
@@ -18,6 +21,8 @@ export function createSheetView(status, send) {
   const header = document.querySelector('.live-head');
   const notice = /** @type {HTMLElement | null} */ (document.querySelector('.live-notice'));
   const foot = document.querySelector('.live-foot');
+  /** @type {ReturnType<typeof setTimeout> | undefined} */
+  let restTimer;
 
   function follow() {
     send({ type: 'follow', target: 'sheet', sheet: body.dataset.sheet ?? '' });
@@ -36,6 +41,7 @@ export function createSheetView(status, send) {
     if (location.pathname !== update.url) history.replaceState(null, '', update.url);
     showCondition(update.condition);
     restorePlace(); // after everything above the reader's place has changed, notice included
+    if (update.base !== null) updating();
     const { movedTo } = update.condition;
     if (movedTo) {
       // Same sheet under its new name: follow it there without a reload.
@@ -44,6 +50,20 @@ export function createSheetView(status, send) {
       if (crumb) crumb.textContent = movedTo;
       follow();
     }
+  }
+
+  /**
+   * While updates come in, parts out of view are skipped by the browser
+   * (style.css, .live-updating); once they pause, the sheet is laid out whole
+   * again, so that it prints and is captured whole.
+   */
+  function updating() {
+    // Turned on once this update has been laid out and painted, never under it:
+    // the browser records each part's size after a frame, and a part it starts
+    // skipping keeps the size it recorded last.
+    requestAnimationFrame(() => requestAnimationFrame(() => main.classList.add('live-updating')));
+    clearTimeout(restTimer);
+    restTimer = setTimeout(() => main.classList.remove('live-updating'), REST_AFTER_MS);
   }
 
   /** @param {SheetCondition} condition */

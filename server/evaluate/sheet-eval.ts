@@ -19,6 +19,8 @@ export interface StatementResult {
   error?: Diagnostic;
   /** Set when not evaluated because an input failed: the failed name. */
   blockedBy?: string;
+  /** The line of the statement behind blockedBy. */
+  blockedLine?: number;
   /** Set when not evaluated because the sheet hit a limit earlier: why. */
   skipped?: string;
   warnings: string[];
@@ -127,7 +129,10 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     }
     const blocked = r.uses.find((n) => failed.has(n));
     if (blocked) {
-      r.blockedBy = failed.get(blocked);
+      const root = failed.get(blocked)!;
+      r.blockedBy = root;
+      const line = defs.get(root)?.stmt.line ?? broken.get(root);
+      if (line !== undefined) r.blockedLine = line;
       return;
     }
     const inputs = r.uses.map((n) => values.get(n) ?? CONSTANTS.get(n)!);

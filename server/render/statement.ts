@@ -95,9 +95,27 @@ export function errorHtml(message: string, line: number, column: number, source?
   return `<div class="ws-error" role="alert"${attrs({ 'data-line': line, 'data-column': column })}><span class="ws-where">line ${line}, column ${column}</span> <span class="ws-message">${escapeHtml(message)}</span>${source ? `<code class="ws-source">${escapeHtml(source)}</code>` : ''}</div>`;
 }
 
-function blockedHtml(r: StatementResult): string {
+/** Why a statement did not run, in one quiet line: the sheet's limit, or the failing line it waits on. */
+function blockedHtml(r: StatementResult, view?: StatementView): string {
   if (r.skipped) return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: ${escapeHtml(r.skipped)}</div>`;
-  return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>not evaluated: depends on <code>${escapeHtml(r.blockedBy!)}</code></div>`;
+  const where = r.blockedLine !== undefined ? `, <a href="#L${r.blockedLine}">line ${r.blockedLine}</a>` : '';
+  const last = view && r.stmt.type === 'define' ? waitingValueHtml(r.stmt.name, view) : '';
+  return `<div class="ws-blocked"${attrs({ 'data-line': r.stmt.line })}>waiting on <code>${escapeHtml(r.blockedBy!)}</code>${where}${last}</div>`;
+}
+
+/** A waiting statement's last good value, in its quiet line (records and tables folded away). */
+function waitingValueHtml(name: string, view: StatementView): string {
+  const v = view.lastGood?.get(name);
+  if (!v) return '';
+  if (v.kind === 'record' || v.kind === 'table' || v.kind === 'figure' || (v.kind === 'list' && v.items.some((i) => i.kind === 'record'))) {
+    return ` · <details class="ws-last-good-fold"><summary>last good value</summary>${staleCopy(name, v, view)}</details>`;
+  }
+  return ` · last good value <span class="ws-last-good-value">${escapeHtml(displayText(v, view.sig))}</span> <span class="ws-stale-tag">stale</span>`;
+}
+
+/** A value as it was, with the machine-readable values taken out: data-si means "current". */
+function staleCopy(name: string, v: Value, view: StatementView): string {
+  return valueHtml(name, v, view.sig).replace(/ data-(?:name|si|unit)="[^"]*"/g, '');
 }
 
 /** The value a failing statement had before, kept in view and plainly marked as not current. */
@@ -107,9 +125,7 @@ export function lastGoodHtml(name: string | undefined, view: StatementView): str
   if (!v) return '';
   // Tables keep their look but lose the machine-readable values: data-si means "current".
   const shown =
-    v.kind === 'record' || v.kind === 'table' || v.kind === 'figure'
-      ? valueHtml(name, v, view.sig).replace(/ data-(?:name|si|unit)="[^"]*"/g, '')
-      : `<span class="ws-last-good-value">${escapeHtml(displayText(v, view.sig))}</span>`;
+    v.kind === 'record' || v.kind === 'table' || v.kind === 'figure' ? staleCopy(name, v, view) : `<span class="ws-last-good-value">${escapeHtml(displayText(v, view.sig))}</span>`;
   return `<div class="ws-last-good"><span class="ws-last-good-label">last good value, stale</span> ${shown}</div>`;
 }
 
@@ -133,7 +149,7 @@ function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'def
     return `${head}><div class="ws-formula">${formula}</div>${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}${lastGoodHtml(s.name, view)}</div>`;
   }
   if (r.blockedBy || r.skipped) {
-    return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, symbolicContext(view))}`)}</div>${blockedHtml(r)}${r.skipped ? '' : lastGoodHtml(s.name, view)}</div>`;
+    return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, symbolicContext(view))}`)}</div>${blockedHtml(r, view)}</div>`;
   }
   const v = r.value!;
   const { inline, block } = resultLatexOrBlock(s.name, v, view);

@@ -97,6 +97,30 @@ describeInBrowser('live sheet page', () => {
     expect(Math.abs((await page.evaluate(() => window.scrollY)) - before)).toBeLessThan(3);
   });
 
+  it('lays the whole sheet out once updates pause, so that it prints and is captured whole', async () => {
+    const filler = Array.from({ length: 80 }, (_, i) => `Paragraph ${i} about the mesh, the far field and the wake.`).join('\n\n');
+    const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s', `${filler}\n\n\`\`\`basis\nlast = 2 * U_inf\n\`\`\`\n`) });
+    const page = await openPage(server.url + 'sheet/wing.md');
+    await page.setViewportSize({ width: 900, height: 500 });
+    await waitForStatus(page, 'live');
+    // Asked after two frames: a change of content-visibility shows in the next rendering update.
+    const partsShown = () =>
+      page.evaluate(async () => {
+        await new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r)));
+        return [...document.querySelectorAll('main .live-part')].every((p) => !p.firstElementChild || p.firstElementChild.checkVisibility({ contentVisibilityAuto: true }));
+      });
+    expect(await partsShown()).toBe(true);
+    await writeFile(path.join(dir, 'wing.md'), wingSheet('14 m/s', `${filler}\n\n\`\`\`basis\nlast = 2 * U_inf\n\`\`\`\n`));
+    await waitForValue(page, 'last', 28);
+    await page.waitForFunction(() => document.querySelector('main')!.classList.contains('live-updating'));
+    await page.emulateMedia({ media: 'print' });
+    expect(await partsShown()).toBe(true); // printed whole even in the middle of updates
+    await page.emulateMedia({ media: 'screen' });
+    // While updates come in, parts far out of view may be skipped; once they pause, none is.
+    await page.waitForFunction(() => !document.querySelector('main')!.classList.contains('live-updating'), null, { timeout: 5000 });
+    expect(await partsShown()).toBe(true);
+  });
+
   it('keeps the paragraph being read in place while the summary above it grows and shrinks', async () => {
     const filler = Array.from({ length: 40 }, (_, i) => `Paragraph ${i} about the mesh, the far field and the wake.`).join('\n\n');
     const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s', filler) });
@@ -143,7 +167,7 @@ describeInBrowser('live sheet page', () => {
     expect(await error.textContent()).toContain('line 9');
     expect(await valueShown(page, 'L')).toBe(4.2); // statements that do not depend on it still show
     // What depends on it keeps its last good value in view, marked stale: Re = 12 × 4.2 / 1.47e-5.
-    expect(await page.textContent('main [data-name="Re"] .ws-last-good')).toMatch(/last good value, stale\s+3\.429×10⁶/i);
+    expect(await page.textContent('main [data-name="Re"] .ws-blocked')).toMatch(/waiting on U_inf, line \d+ · last good value 3\.429×10⁶ stale/i);
     expect(await valueShown(page, 'Re')).toBeNull(); // and does not pass for a current value
     await writeFile(path.join(dir, 'wing.md'), wingSheet('15 m/s'));
     await page.waitForSelector('main .ws-error', { state: 'detached' });

@@ -35,15 +35,15 @@ describe('dependency order', () => {
     const r = await sheet(['bad = 12 m/s + 3 Pa', 'twice = bad * 2', 'thrice = twice * 3 / 2', 'ok = 5 m']);
     expect(r.errors).toHaveLength(1);
     const html = r.parts.map((p) => p.html).join('');
-    expect(html).toMatch(/data-name="twice" data-state="not-evaluated"[\s\S]*not evaluated: depends on <code>bad<\/code>/);
-    expect(html).toMatch(/data-name="thrice" data-state="not-evaluated"[\s\S]*not evaluated: depends on <code>bad<\/code>/);
+    expect(html).toMatch(/data-name="twice" data-state="not-evaluated"[\s\S]*waiting on <code>bad<\/code>, <a href="#L\d+">line \d+<\/a>/);
+    expect(html).toMatch(/data-name="thrice" data-state="not-evaluated"[\s\S]*waiting on <code>bad<\/code>/);
     expect(r.values.ok).toBeDefined();
   });
 
   it('blocks users of a line that could not be parsed', async () => {
     const r = await sheet(['U = 12 m/', 'q = U * 2']);
     expect(r.errors).toHaveLength(1);
-    expect(r.parts.map((p) => p.html).join('')).toContain('not evaluated: depends on <code>U</code>');
+    expect(r.parts.map((p) => p.html).join('')).toContain('waiting on <code>U</code>');
   });
 
   it('evaluates chained comparisons, element-wise lists and checks', async () => {
@@ -83,8 +83,9 @@ describe('last good values while a sheet has errors', () => {
     expect(broken.errors.map((e) => [e.line, e.message])).toEqual([[6, 'cannot add m/s to Pa']]);
     // Re = 12 × 0.3 / 1.5e-5 = 2.4e5, computed before the break.
     const re = statement(html, 'Re');
-    expect(re).toContain('not evaluated: depends on');
-    expect(re).toMatch(/last good value, stale<\/span> <span class="ws-last-good-value">2\.4×10⁵<\/span>/);
+    // One quiet line: what it waits on, where, and the last good value, marked stale; no box of its own.
+    expect(re).toMatch(/waiting on <code>U<\/code>, <a href="#L6">line 6<\/a> · last good value <span class="ws-last-good-value">2\.4×10⁵<\/span> <span class="ws-stale-tag">stale<\/span>/);
+    expect(re).not.toContain('ws-error');
     expect(re).toContain('data-state="not-evaluated"');
     expect(re).not.toContain('data-si'); // a stale number is not offered as current
     expect(statement(html, 'U')).toMatch(/ws-last-good-value">12 m\/s</); // the broken input shows its own last good value
