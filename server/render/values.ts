@@ -107,7 +107,9 @@ export function valueHtml(name: string, v: Value, sig: number): string {
 
 function recordHtml(name: string, r: RecordValue, sig: number): string {
   const owner = name.replace(/\[\d+\]$/, '');
-  const rows = [...r.fields].map(([field, f]) => {
+  // Tables are too wide for the value column: they follow the fields table at full width, under their name and note.
+  const wide = [...r.fields].filter(([, f]) => f.value.kind === 'table');
+  const rows = [...r.fields].filter(([, f]) => f.value.kind !== 'table').map(([field, f]) => {
     const v = f.value;
     const sym = v.kind === 'quantity' ? mathHtml(f.symbol ?? fieldLatex(owner, field)) : '';
     let value: string;
@@ -126,7 +128,8 @@ function recordHtml(name: string, r: RecordValue, sig: number): string {
   const warnings = r.warnings.length ? `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
   const remarks = r.remarks.length ? `<ul class="ws-remarks">${r.remarks.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
   const fig = r.figure ? valueHtml(`${name}.figure`, r.figure, sig) : '';
-  return `<div class="ws-record"${attrs({ 'data-name': name, 'data-tag': r.tag })}><table class="ws-fields"><thead><tr><th>field</th><th>symbol</th><th>value</th><th>unit</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table>${warnings}${fig}${remarks}</div>`;
+  const tables = wide.map(([field, f]) => `<div class="ws-subtable"><div class="ws-note"><span class="ws-field">${escapeHtml(field)}</span> ${escapeHtml(f.note ?? '')}</div>${valueHtml(`${name}.${field}`, f.value, sig)}</div>`);
+  return `<div class="ws-record"${attrs({ 'data-name': name, 'data-tag': r.tag })}><table class="ws-fields"><thead><tr><th>field</th><th>symbol</th><th>value</th><th>unit</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table>${tables.join('')}${warnings}${fig}${remarks}</div>`;
 }
 
 function tableHtml(name: string, t: Extract<Value, { kind: 'table' }>, sig: number): string {
