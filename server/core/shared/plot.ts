@@ -151,7 +151,8 @@ function thin(points: ReadonlyArray<readonly [number, number]>): ReadonlyArray<r
 /**
  * Which of `count` points (in x order, y given by `yAt`) a chart draws: all of
  * them up to MAX_POINTS, else each bucket's lowest and highest in x order. For
- * series too long to build as points first (a 100,000-iteration history).
+ * series too long to build as points first (a 100,000-iteration history). A y
+ * of NaN (a point the chart cannot draw) is picked only from a bucket of nothing else.
  */
 export function thinnedIndices(count: number, yAt: (k: number) => number): number[] {
   if (count <= MAX_POINTS) return Array.from({ length: count }, (_, k) => k);
@@ -163,10 +164,19 @@ export function thinnedIndices(count: number, yAt: (k: number) => number): numbe
     const to = Math.min(count, Math.floor((b + 1) * size));
     let lo = from;
     let hi = from;
-    for (let k = from; k < to; k++) {
+    let yLo = yAt(from);
+    let yHi = yLo;
+    for (let k = from + 1; k < to; k++) {
       const y = yAt(k);
-      if (y < yAt(lo)) lo = k;
-      if (y > yAt(hi)) hi = k;
+      if (Number.isNaN(y)) continue;
+      if (y < yLo || Number.isNaN(yLo)) {
+        lo = k;
+        yLo = y;
+      }
+      if (y > yHi || Number.isNaN(yHi)) {
+        hi = k;
+        yHi = y;
+      }
     }
     if (lo <= hi) out.push(lo, hi);
     else out.push(hi, lo);
