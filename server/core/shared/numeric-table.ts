@@ -47,7 +47,6 @@ const COMMA = 44;
 
 export function readNumericTable(source: string, options: NumericTableOptions = {}): NumericTable {
   const text = source.charCodeAt(0) === 0xfeff ? source.slice(1) : source;
-  const delimiter = detectDelimiter(text);
   // The header: the first line with anything on it, read by csv.ts (quotes and all).
   let headerStart = 0;
   let headerRow = 1;
@@ -60,6 +59,8 @@ export function readNumericTable(source: string, options: NumericTableOptions = 
     headerRow++;
   }
   const headerEnd = text.indexOf('\n', headerStart);
+  // csv.ts detects the delimiter from the header line; handing it only the lines up to the header spares it splitting the whole file.
+  const delimiter = detectDelimiter(headerEnd < 0 ? text : text.slice(0, headerEnd));
   if (headerEnd < 0 && options.growing) throw new TradeError('the file holds no complete line yet: the header row has no line end');
   const header = readDelimited(text.slice(headerStart, headerEnd < 0 ? text.length : headerEnd)).header;
   const width = header.length;
