@@ -1,11 +1,12 @@
 // The trade library: every family's entries in one registry. A family is a
 // folder of pure maths files and one entries.ts; add a new family here.
+import { convergenceEntries } from './convergence/entries.js';
 import { fluidEntries } from './fluids/entries.js';
 import { mathsEntries } from './maths/entries.js';
 import { Registry, type TradeFunction } from './shared/registry.js';
 import { wallEntries } from './wall/entries.js';
 
-export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsEntries, fluidEntries, wallEntries];
+export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsEntries, fluidEntries, wallEntries, convergenceEntries];
 
 export function createRegistry(): Registry {
   return new Registry(families.flat());
