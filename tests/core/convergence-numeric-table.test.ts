@@ -111,3 +111,37 @@ describe('numeric tables read as csv.ts reads them', () => {
     expect(errorOf(() => readNumericTable('\n\n'))).toMatch(/the file is empty/);
   });
 });
+
+describe('a growing file read again and again', () => {
+  const whole = ['it,p,U', ...Array.from({ length: 400 }, (_, k) => `${k + 1},${(0.99 ** k).toExponential(6)},${(0.97 ** k).toPrecision(9)}`)].join('\n') + '\n';
+
+  it('reads each longer text as a fresh reader would, wherever a write stopped', () => {
+    let cut = 20;
+    for (const step of [3, 17, 40, 1, 99, 260, 23, 511, 7, 1300, 4000, 9000]) {
+      cut = Math.min(whole.length, cut + step);
+      const text = whole.slice(0, cut);
+      const t = readNumericTable(text, { growing: true });
+      const complete = text.slice(0, text.lastIndexOf('\n') + 1);
+      expect({ header: t.header, columns: t.columns.map((c) => [...c.subarray(0, t.rows)]), lines: [...t.lines.subarray(0, t.rows)] }).toEqual(viaCsv(complete));
+      const tail = text.slice(complete.length);
+      expect(t.unfinished).toEqual(tail ? { row: complete.split('\n').length, text: tail } : undefined);
+    }
+  });
+
+  it('the same text gives the same table; a rewritten file is read afresh', () => {
+    const text = whole.slice(0, 3000);
+    expect(readNumericTable(text, { growing: true })).toBe(readNumericTable(text, { growing: true }));
+    const rewritten = whole.replace(/^(it,p,U\n1,)[^,]+/, '$19.5e-1');
+    const t = readNumericTable(rewritten, { growing: true });
+    expect(t.columns[1]![0]).toBe(0.95);
+    expect(t.rows).toBe(400);
+  });
+
+  it('a bad line written after the last read is named by its own row, and is read again once fixed', () => {
+    const start = whole.slice(0, whole.indexOf('\n', 2000) + 1);
+    const rows = readNumericTable(start, { growing: true }).rows;
+    const bad = start + '999,abc,1\n';
+    expect(errorOf(() => readNumericTable(bad, { growing: true }))).toBe(`row ${rows + 2}: "abc" in column p is not a number`);
+    expect(readNumericTable(start + '999,0.5,1\n', { growing: true }).rows).toBe(rows + 1);
+  });
+});

@@ -4,8 +4,9 @@
 // worded; this reader only adds speed. A general CSV parser builds a string
 // per cell and takes a few hundred milliseconds over a 100,000-row history of
 // eight columns, which a live page reads again on every write; here one pass
-// over the characters reads short decimals directly, and any cell off that
-// fast path goes through csv.ts.
+// over the characters reads short decimals directly, any cell off that fast
+// path goes through csv.ts, and a growing file's lines already read are not
+// read again.
 import { checkRowWidth, detectDelimiter, numberCell, readDelimited, type DelimitedTable, type Delimiter } from './csv.js';
 import { TradeError } from './trade-error.js';
 
@@ -45,9 +46,93 @@ const MINUS = 45;
 const DOT = 46;
 const COMMA = 44;
 
+interface Shape {
+  header: string[];
+  delimiter: Delimiter;
+  /** For csv.ts's cell rules and messages. */
+  csv: DelimitedTable;
+}
+
+/**
+ * A growing file read before: its text, how far its complete lines reach,
+ * and the table read from them. A file a solver appends to is read again on
+ * every write; the lines read last time are not read again.
+ */
+interface Memo {
+  text: string;
+  shape: Shape;
+  /** Offset just past the last complete line read. */
+  resume: number;
+  /** Spreadsheet row number of the last line before `resume`. */
+  resumeRow: number;
+  table: NumericTable;
+}
+
+/** Growing files remembered (a sheet usually follows one or two: residuals and forces). */
+const MEMO_SIZE = 3;
+const memos: Memo[] = [];
+
 export function readNumericTable(source: string, options: NumericTableOptions = {}): NumericTable {
   const text = source.charCodeAt(0) === 0xfeff ? source.slice(1) : source;
-  // The header: the first line with anything on it, read by csv.ts (quotes and all).
+  const growing = options.growing === true;
+  const memo = growing ? recall(text) : undefined;
+  if (memo && memo.text === text) return memo.table;
+
+  let shape: Shape;
+  let pos: number;
+  let row: number;
+  if (memo) {
+    ({ shape, resume: pos, resumeRow: row } = memo);
+  } else {
+    const head = readHeader(text, growing);
+    if (!head) {
+      const header = readDelimited(text).header;
+      return { header, delimiter: detectDelimiter(text), columns: header.map(() => new Float64Array(0)), rows: 0, lines: new Int32Array(0) };
+    }
+    ({ shape, pos, row } = head);
+  }
+
+  let end = text.length;
+  if (growing && text.charCodeAt(end - 1) !== NL) end = text.lastIndexOf('\n') + 1;
+  const kept = memo ? memo.table.rows : 0;
+  const capacity = kept + countLines(text, pos, end) + 1;
+  const columns = shape.header.map((_, c) => {
+    const column = new Float64Array(capacity);
+    if (memo) column.set(memo.table.columns[c]!.subarray(0, kept));
+    return column;
+  });
+  const lines = new Int32Array(capacity);
+  if (memo) lines.set(memo.table.lines.subarray(0, kept));
+  const read = readRows(text, pos, end, row, shape, columns, lines, kept);
+
+  const table: NumericTable = { header: shape.header, delimiter: shape.delimiter, columns, rows: read.rows, lines };
+  const tail = text.slice(end);
+  if (tail.trim() !== '') table.unfinished = { row: read.row + 1, text: tail };
+  if (growing) remember({ text, shape, resume: end, resumeRow: read.row, table });
+  return table;
+}
+
+/** The memo this text continues (or equals), if any. */
+function recall(text: string): Memo | undefined {
+  for (const m of memos) {
+    if (m.text === text) return m;
+    if (text.length >= m.resume && text.startsWith(m.resume === m.text.length ? m.text : m.text.slice(0, m.resume))) return m;
+  }
+  return undefined;
+}
+
+function remember(m: Memo): void {
+  const old = memos.findIndex((x) => m.text.startsWith(x.text.slice(0, x.resume)));
+  if (old >= 0) memos.splice(old, 1);
+  memos.unshift(m);
+  memos.length = Math.min(memos.length, MEMO_SIZE);
+}
+
+/**
+ * The header: the first line with anything on it, read by csv.ts (quotes and
+ * all). Null for a finished file that holds only its header line.
+ */
+function readHeader(text: string, growing: boolean): { shape: Shape; pos: number; row: number } | null {
   let headerStart = 0;
   let headerRow = 1;
   for (;;) {
@@ -59,31 +144,23 @@ export function readNumericTable(source: string, options: NumericTableOptions = 
     headerRow++;
   }
   const headerEnd = text.indexOf('\n', headerStart);
+  if (headerEnd < 0 && growing) throw new TradeError('the file holds no complete line yet: the header row has no line end');
+  if (headerEnd < 0) return null;
   // csv.ts detects the delimiter from the header line; handing it only the lines up to the header spares it splitting the whole file.
-  const delimiter = detectDelimiter(headerEnd < 0 ? text : text.slice(0, headerEnd));
-  if (headerEnd < 0 && options.growing) throw new TradeError('the file holds no complete line yet: the header row has no line end');
-  const header = readDelimited(text.slice(headerStart, headerEnd < 0 ? text.length : headerEnd)).header;
-  const width = header.length;
+  const delimiter = detectDelimiter(text.slice(0, headerEnd));
+  const header = readDelimited(text.slice(headerStart, headerEnd)).header;
+  return { shape: { header, delimiter, csv: { header, rows: [], delimiter } }, pos: headerEnd + 1, row: headerRow };
+}
 
-  let end = text.length;
-  let unfinished: NumericTable['unfinished'];
-  if (options.growing && text.charCodeAt(end - 1) !== NL) {
-    const start = text.lastIndexOf('\n') + 1;
-    const tail = text.slice(start);
-    if (tail.trim() !== '') unfinished = { row: headerRow + countLines(text, headerStart, start), text: tail };
-    end = start;
-  }
-
-  const capacity = headerEnd < 0 ? 0 : countLines(text, headerEnd + 1, end) + 1;
-  const columns = Array.from({ length: width }, () => new Float64Array(capacity));
-  const lines = new Int32Array(capacity);
-  const shape: DelimitedTable = { header, rows: [], delimiter };
+/**
+ * Reads the lines from `pos` up to `end` into the columns from index `rows`
+ * on; `row` is the spreadsheet row number of the line before `pos`.
+ */
+function readRows(text: string, pos: number, end: number, row: number, shape: Shape, columns: Float64Array[], lines: Int32Array, rows: number): { rows: number; row: number } {
+  const width = shape.header.length;
+  const delimiter = shape.delimiter;
   const delim = delimiter.charCodeAt(0);
   const decimalComma = delimiter !== ',';
-  let rows = 0;
-  let row = headerRow;
-  let pos = headerEnd < 0 ? end : headerEnd + 1;
-
   while (pos < end) {
     row++;
     const lineEnd = lineEndFrom(text, pos, end);
@@ -156,9 +233,9 @@ export function readNumericTable(source: string, options: NumericTableOptions = 
         // Anything else: find the cell's end and let csv.ts judge it.
         let cellEnd = last ? lineEnd : text.indexOf(delimiter, cell);
         if (cellEnd < 0 || cellEnd > lineEnd) cellEnd = lineEnd;
-        if (!last && cellEnd === lineEnd) widthError(shape, text, pos, lineEnd, row);
-        if (last && text.indexOf(delimiter, cell) >= 0 && text.indexOf(delimiter, cell) < lineEnd) widthError(shape, text, pos, lineEnd, row);
-        value = slowCell(shape, text.slice(cell, cellEnd).trim(), row, c);
+        if (!last && cellEnd === lineEnd) widthError(shape.csv, text, pos, lineEnd, row);
+        if (last && text.indexOf(delimiter, cell) >= 0 && text.indexOf(delimiter, cell) < lineEnd) widthError(shape.csv, text, pos, lineEnd, row);
+        value = slowCell(shape.csv, text.slice(cell, cellEnd).trim(), row, c);
         cell = cellEnd + 1;
       }
       columns[c]![rows] = value;
@@ -167,9 +244,7 @@ export function readNumericTable(source: string, options: NumericTableOptions = 
     rows++;
     pos = lineEnd + 1;
   }
-  const table: NumericTable = { header, delimiter, columns, rows, lines };
-  if (unfinished) table.unfinished = unfinished;
-  return table;
+  return { rows, row };
 }
 
 /** Where the line starting at `pos` ends (its "\n", or `end`). */
