@@ -192,7 +192,7 @@ async function saveToPage(sheet: BenchSheet) {
  * Kept as source text: the TypeScript loader would add helpers to a function
  * that do not exist in the page.
  */
-const PROBE_SOURCE = `(() => {
+export const PROBE_SOURCE = `(() => {
   const now = () => performance.timeOrigin + performance.now();
   window.benchTarget = null;
   window.benchSeen = null;
