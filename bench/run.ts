@@ -3,10 +3,20 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { benchConvergence, printConvergence } from './convergence.js';
 import { benchLive, printLive } from './live.js';
 
 const out = path.join(path.dirname(fileURLToPath(import.meta.url)), 'out');
-const live = await benchLive();
-printLive(live);
+// WAKESHEET_BENCH_ONLY=demo, =large or =convergence runs one of them.
+const only = process.env.WAKESHEET_BENCH_ONLY;
 await mkdir(out, { recursive: true });
-await writeFile(path.join(out, 'live.json'), JSON.stringify({ at: new Date().toISOString(), live }, null, 2));
+if (only !== 'convergence') {
+  const live = await benchLive();
+  printLive(live);
+  await writeFile(path.join(out, 'live.json'), JSON.stringify({ at: new Date().toISOString(), live }, null, 2));
+}
+if (!only || only === 'convergence') {
+  const convergence = await benchConvergence();
+  printConvergence(convergence);
+  await writeFile(path.join(out, 'convergence.json'), JSON.stringify({ at: new Date().toISOString(), convergence }, null, 2));
+}
