@@ -133,6 +133,15 @@ describe('advice from a residual history (common practice)', () => {
     expect(floor.remarks.join(' ')).toMatch(/already at the floor/);
   });
 
+  it('gives no estimate for a run that blew up after falling', () => {
+    const blown = historyCsv(range(1, 300), { p: (n) => (n < 280 ? Math.pow(0.99, n) : 'nan') });
+    const h = call('residuals', { path: str('run.csv') }, { 'run.csv': blown });
+    const r = call('relaxation', { alpha_u: num(0.7), history: h });
+    expect(textField(r, 'advice')).toBe('lower');
+    expect(r.fields.has('next_factor')).toBe(false);
+    expect(r.remarks.join(' ')).toMatch(/No estimate: p is diverging although its trailing factor \(0.99\) is below 1/);
+  });
+
   it('refuses a record that is not a residual history', () => {
     const notHistory = call('relaxation', { alpha_u: num(0.7) });
     expect(() => call('relaxation', { alpha_u: num(0.7), history: notHistory })).toThrow(/history must be a residuals/);

@@ -290,26 +290,25 @@ const relaxation: TradeFunction = {
     if (history) {
       const { verdict, factor, worst } = readResidualRecord(history);
       const rec = recommend(scheme, verdict, factor, alphaU);
-      const mode: Mode = args['mode'] === undefined ? (verdict === 'oscillating' ? 'alternating' : 'monotone') : choiceArg(args, 'mode', MODES);
-      const lambda = undampedFactor(factor, alphaU, mode);
-      const at = toAlpha ?? rec.alphaU;
-      const nextFactor = dampedFactor(lambda, at);
-      notes['next_factor'] = `estimated factor at α_u ${numberText(at)} (damped fixed-point model)`;
-      notes['factor'] = `measured for ${worst}: ${factorText(factor)} per iteration`;
       const nextP = givenP === undefined ? pairedPressure(scheme, rec.alphaU) : Math.min(1, givenP * (rec.alphaU / alphaU));
-      Object.assign(values, {
-        advice: str(rec.advice),
-        next_alpha_u: num(rec.alphaU),
-        next_alpha_p: num(nextP),
-        factor: num(factor),
-        lambda: num(lambda),
-        next_factor: num(nextFactor),
-      });
+      Object.assign(values, { advice: str(rec.advice), next_alpha_u: num(rec.alphaU), next_alpha_p: num(nextP), factor: num(factor) });
+      notes['factor'] = `measured for ${worst}: ${factorText(factor)} per iteration`;
       remarks.push(`Advice (${rec.advice}): ${rec.reason}.`);
       if (scheme === 'SIMPLE' && givenP === undefined && rec.advice !== 'keep') remarks.push(`For SIMPLE α_p follows α_u as 1 − α_u (Ferziger and Perić), so α_p moves the other way: ${numberText(alphaP)} → ${numberText(nextP)}.`);
-      remarks.push(...modelRemarks(factor, alphaU, mode, lambda, at, nextFactor, worst));
-      if (mode === 'monotone' && lambda >= 1) {
-        warnings.push(`in the model this run's error grows by itself (λ = ${numberText(lambda, { digits: 4 })} ≥ 1): under-relaxation only slows the growth, no factor stops it; look at the mesh, the boundary conditions or the time step.`);
+      if (verdict === 'diverging' && factor < 1) {
+        // A run that blew up (nan) or rose above its start after falling: its trailing factor describes the fall, not the trouble.
+        remarks.push(`No estimate: ${worst} is diverging although its trailing factor (${factorText(factor)}) is below 1, so the factor says nothing about the divergence.`);
+      } else {
+        const mode: Mode = args['mode'] === undefined ? (verdict === 'oscillating' ? 'alternating' : 'monotone') : choiceArg(args, 'mode', MODES);
+        const lambda = undampedFactor(factor, alphaU, mode);
+        const at = toAlpha ?? rec.alphaU;
+        const nextFactor = dampedFactor(lambda, at);
+        notes['next_factor'] = `estimated factor at α_u ${numberText(at)} (damped fixed-point model)`;
+        Object.assign(values, { lambda: num(lambda), next_factor: num(nextFactor) });
+        remarks.push(...modelRemarks(factor, alphaU, mode, lambda, at, nextFactor, worst));
+        if (mode === 'monotone' && lambda >= 1) {
+          warnings.push(`in the model this run's error grows by itself (λ = ${numberText(lambda, { digits: 4 })} ≥ 1): under-relaxation only slows the growth, no factor stops it; look at the mesh, the boundary conditions or the time step.`);
+        }
       }
     } else if (toAlpha !== undefined || args['mode'] !== undefined) {
       throw new TradeError('to_alpha_u and mode need history: (a residuals(…) record of a run made with alpha_u)');
