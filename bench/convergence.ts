@@ -41,8 +41,10 @@ export interface SaveFigures {
 
 export interface ConvergenceFigures {
   fileMb: number;
-  /** residuals() compute, text to record. */
+  /** residuals() compute, text to record: wall clock. */
   compute: Summary;
+  /** The same runs in processor time of this process (user + system): what the runs cost on a machine shared with other work. */
+  computeCpu: Summary;
   /** Null without Chromium. */
   append: SaveFigures | null;
   inputChange: SaveFigures | null;
@@ -114,30 +116,36 @@ function sheet(target: number, speed: number): string {
 
 export async function benchConvergence(): Promise<ConvergenceFigures> {
   const text = HEADER + historyLines(1, ITERATIONS);
-  const compute = computeCost(text);
+  const { wall: compute, cpu: computeCpu } = computeCost(text);
   const browser = existsSync(CHROMIUM) ? await liveCost(text) : null;
   if (!browser) console.warn(`skipping the live part: no Chromium at ${CHROMIUM}`);
-  return { fileMb: Buffer.byteLength(text) / 1e6, compute, append: browser?.append ?? null, inputChange: browser?.input ?? null, unrelatedInput: browser?.unrelated ?? null };
+  return { fileMb: Buffer.byteLength(text) / 1e6, compute, computeCpu, append: browser?.append ?? null, inputChange: browser?.input ?? null, unrelatedInput: browser?.unrelated ?? null };
 }
 
 /**
  * Each run reads a text of its own (the header names the run), so that the
  * reader's memo of a growing file never answers: every run parses all of it.
  */
-function computeCost(text: string): Summary {
+function computeCost(text: string): { wall: Summary; cpu: Summary } {
   const residuals = convergenceEntries.find((e) => e.name === 'residuals')!;
   const args = { path: str('data/run.csv'), target_drop: num(4), window: num(200), initial: num(5) };
   const body = text.slice(text.indexOf('\n'));
-  const samples: number[] = [];
+  const wall: number[] = [];
+  const cpu: number[] = [];
   for (let run = 0; run < COMPUTE_RUNS + 3; run++) {
     const own = `iteration${run}${HEADER.slice('iteration'.length, -1)}${body}`;
     own.charCodeAt(own.length - 1); // joins the two pieces into one flat string, as a file read gives, before the clock starts
     const ctx = { readData: () => own, warn: () => {} };
+    const c0 = process.cpuUsage();
     const t0 = performance.now();
     residuals.compute(args, ctx);
-    if (run >= 3) samples.push(performance.now() - t0); // the first runs warm up the JIT
+    const t1 = performance.now();
+    const c1 = process.cpuUsage(c0);
+    if (run < 3) continue; // the first runs warm up the JIT
+    wall.push(t1 - t0);
+    cpu.push((c1.user + c1.system) / 1000);
   }
-  return summarise(samples);
+  return { wall: summarise(wall), cpu: summarise(cpu) };
 }
 
 async function liveCost(text: string) {
@@ -200,6 +208,7 @@ export function printConvergence(f: ConvergenceFigures): void {
   const row = (label: string, s: Summary | null | undefined) => console.log(`  ${label.padEnd(60)}${fmt(s?.median ?? NaN)} ${fmt(s?.p95 ?? NaN)} ${fmt(s?.min ?? NaN)} ${fmt(s?.max ?? NaN)}`);
   console.log('\nConvergence (ms)                                                median      p95      min      max');
   row(`residuals(), ${ITERATIONS.toLocaleString('en')} iterations × ${FIELDS.length} fields (${f.fileMb.toFixed(1)} MB)`, f.compute);
+  row('  the same runs in processor time of this process', f.computeCpu);
   const save = (label: string, s: SaveFigures | null) => {
     row(label, s?.toDom);
     row('  of which: write → evaluation starts', s?.toEvalStart);
