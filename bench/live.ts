@@ -111,8 +111,11 @@ function floorCost(sheet: BenchSheet, formulas: string[]): Summary {
 }
 
 /** The sandbox, noting when each evaluation starts and ends (epoch ms, like the page's clock). */
-class TimedSandbox implements SheetRunner {
-  private readonly inner = new Sandbox({ timeoutMs: BENCH_TIMEOUT_MS });
+export class TimedSandbox implements SheetRunner {
+  private readonly inner: Sandbox;
+  constructor(timeoutMs = BENCH_TIMEOUT_MS) {
+    this.inner = new Sandbox({ timeoutMs });
+  }
   last = { start: 0, end: 0, engine: 0 };
   async run(text: string, opts: RunOptions): Promise<SheetResult> {
     const start = performance.timeOrigin + performance.now();
@@ -192,7 +195,7 @@ async function saveToPage(sheet: BenchSheet) {
  * Kept as source text: the TypeScript loader would add helpers to a function
  * that do not exist in the page.
  */
-const PROBE_SOURCE = `(() => {
+export const PROBE_SOURCE = `(() => {
   const now = () => performance.timeOrigin + performance.now();
   window.benchTarget = null;
   window.benchSeen = null;

@@ -2,12 +2,13 @@
 // folder of pure maths files and one entries.ts; add a new family here.
 import { boundaryEntries } from './boundaries/entries.js';
 import { domainEntries } from './domain/entries.js';
+import { convergenceEntries } from './convergence/entries.js';
 import { fluidEntries } from './fluids/entries.js';
 import { mathsEntries } from './maths/entries.js';
 import { Registry, type TradeFunction } from './shared/registry.js';
 import { wallEntries } from './wall/entries.js';
 
-export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsEntries, fluidEntries, wallEntries, domainEntries, boundaryEntries];
+export const families: ReadonlyArray<readonly TradeFunction[]> = [mathsEntries, fluidEntries, wallEntries, domainEntries, boundaryEntries, convergenceEntries];
 
 export function createRegistry(): Registry {
   return new Registry(families.flat());

@@ -32,16 +32,11 @@ export function valueHtml(name: string, v: Value, sig: number): string {
 }
 
 function recordHtml(name: string, r: RecordValue, sig: number): string {
-  const rows = [...r.fields].map(([field, f]) => {
+  // Tables are too wide for the value column: they follow the fields table at full width, under their name and note.
+  const wide = [...r.fields].filter(([, f]) => f.value.kind === 'table');
+  const rows = [...r.fields].filter(([, f]) => f.value.kind !== 'table').map(([field, f]) => {
     const v = f.value;
-    // The field's declared symbol, and the name a sheet writes it by.
-    const sym = f.symbol ? mathHtml(f.symbol) : '';
-    const label = sym ? `<span class="ws-sym">${sym}</span><code class="ws-field-name">${escapeHtml(field)}</code>` : `<code class="ws-field-name">${escapeHtml(field)}</code>`;
-    // A table inside a record takes the row's full width, its note under it.
-    if (v.kind === 'table') {
-      const note = f.note ? `<div class="ws-note">${escapeHtml(f.note)}</div>` : '';
-      return `<tr><td class="ws-field">${label}</td><td class="ws-wide" colspan="3">${tableHtml(`${name}.${field}`, v, sig)}${note}</td></tr>`;
-    }
+    const label = fieldLabel(field, f.symbol);
     let value: string;
     let unit = '';
     if (v.kind === 'quantity') {
@@ -58,7 +53,14 @@ function recordHtml(name: string, r: RecordValue, sig: number): string {
   const warnings = r.warnings.length ? `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
   const remarks = r.remarks.length ? `<ul class="ws-remarks">${r.remarks.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
   const fig = r.figure ? valueHtml(`${name}.figure`, r.figure, sig) : '';
-  return `<div class="ws-record"${attrs({ 'data-name': name, 'data-tag': r.tag })}><table class="ws-fields"><thead><tr><th>field</th><th>value</th><th>unit</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table>${warnings}${fig}${remarks}</div>`;
+  const tables = wide.map(([field, f]) => `<div class="ws-subtable"><div class="ws-subtable-head"><span class="ws-field">${fieldLabel(field, f.symbol)}</span> <span class="ws-note">${escapeHtml(f.note ?? '')}</span></div>${valueHtml(`${name}.${field}`, f.value, sig)}</div>`);
+  return `<div class="ws-record"${attrs({ 'data-name': name, 'data-tag': r.tag })}><table class="ws-fields"><thead><tr><th>field</th><th>value</th><th>unit</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table>${tables.join('')}${warnings}${fig}${remarks}</div>`;
+}
+
+/** A field as the record table names it: its declared symbol, and the name a sheet writes it by. */
+function fieldLabel(field: string, symbol: string | undefined): string {
+  const code = `<code class="ws-field-name">${escapeHtml(field)}</code>`;
+  return symbol ? `<span class="ws-sym">${mathHtml(symbol)}</span>${code}` : code;
 }
 
 /** Lists longer than this fold: the first and last items in view, all of them a click away. */

@@ -208,6 +208,6 @@ describe('cell budget in the sheet language', () => {
     expect(relErr(r.values.b_shells!.fields!.cells!.si!, (200_000 - 1600) / 8 + (1600 - 50) / 0.125 + (15 + 22.5) / 0.125 ** 3 + 6400)).toBeLessThan(1e-12);
     expect(r.html).toContain('surface band');
     // The per-region table spans its row of the record rather than squeezing the other fields.
-    expect(r.parts.map((p) => p.html).join('')).toMatch(/<td class="ws-wide" colspan="3"><div class="ws-table-wrap"><table class="ws-table" data-name="b.zones">/);
+    expect(r.parts.map((p) => p.html).join('')).toMatch(/<div class="ws-subtable"><div class="ws-subtable-head">.*?<\/div><div class="ws-table-wrap"><table class="ws-table" data-name="b.zones">/);
   });
 });

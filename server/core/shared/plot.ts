@@ -145,20 +145,40 @@ function drawable(q: readonly [number, number], p: LinePlot): boolean {
 /** Keeps a long series to MAX_POINTS points, each bucket's lowest and highest kept so spikes stay visible. */
 function thin(points: ReadonlyArray<readonly [number, number]>): ReadonlyArray<readonly [number, number]> {
   if (points.length <= MAX_POINTS) return points;
+  return thinnedIndices(points.length, (k) => points[k]![1]).map((k) => points[k]!);
+}
+
+/**
+ * Which of `count` points (in x order, y given by `yAt`) a chart draws: all of
+ * them up to MAX_POINTS, else each bucket's lowest and highest in x order. For
+ * series too long to build as points first (a 100,000-iteration history). A y
+ * of NaN (a point the chart cannot draw) is picked only from a bucket of nothing else.
+ */
+export function thinnedIndices(count: number, yAt: (k: number) => number): number[] {
+  if (count <= MAX_POINTS) return Array.from({ length: count }, (_, k) => k);
   const buckets = MAX_POINTS / 2;
-  const size = points.length / buckets;
-  const out: Array<readonly [number, number]> = [];
+  const size = count / buckets;
+  const out: number[] = [];
   for (let b = 0; b < buckets; b++) {
     const from = Math.floor(b * size);
-    const to = Math.min(points.length, Math.floor((b + 1) * size));
-    let lo = points[from]!;
-    let hi = points[from]!;
-    for (let k = from; k < to; k++) {
-      const q = points[k]!;
-      if (q[1] < lo[1]) lo = q;
-      if (q[1] > hi[1]) hi = q;
+    const to = Math.min(count, Math.floor((b + 1) * size));
+    let lo = from;
+    let hi = from;
+    let yLo = yAt(from);
+    let yHi = yLo;
+    for (let k = from + 1; k < to; k++) {
+      const y = yAt(k);
+      if (Number.isNaN(y)) continue;
+      if (y < yLo || Number.isNaN(yLo)) {
+        lo = k;
+        yLo = y;
+      }
+      if (y > yHi || Number.isNaN(yHi)) {
+        hi = k;
+        yHi = y;
+      }
     }
-    if (lo[0] <= hi[0]) out.push(lo, hi);
+    if (lo <= hi) out.push(lo, hi);
     else out.push(hi, lo);
   }
   return out;
