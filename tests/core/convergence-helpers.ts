@@ -1,11 +1,13 @@
 // Shared pieces for the convergence tests: calling the family's entries with a
 // context whose data files come from a map, reading record fields and table
 // rows, and writing synthetic histories as CSV text.
-import { createRegistry, type Args, type CallContext, type Quantity, type RecordValue, type TradeFunction, type Value } from '../../server/core/index.js';
+import { createRegistry, type Args, type Quantity, type RecordValue, type TradeFunction, type Value } from '../../server/core/index.js';
 import { convergenceEntries } from '../../server/core/convergence/entries.js';
 import { evaluate } from '../../server/evaluate/interpreter.js';
 import { Budget, DEFAULT_LIMITS } from '../../server/evaluate/limits.js';
+import { makeScope } from '../../server/evaluate/make-scope.js';
 import { parseExpression } from '../../server/parse/index.js';
+import { stubContext } from './wall-helpers.js';
 
 export function entry(name: string): TradeFunction {
   const f = convergenceEntries.find((e) => e.name === name);
@@ -13,18 +15,8 @@ export function entry(name: string): TradeFunction {
   return f;
 }
 
-export function context(files: Record<string, string> = {}): CallContext & { warnings: string[] } {
-  const warnings: string[] = [];
-  return {
-    warnings,
-    readData(path) {
-      const text = files[path];
-      if (text === undefined) throw new Error(`test stub has no file ${path}`);
-      return text;
-    },
-    warn: (m) => warnings.push(m),
-  };
-}
+/** A call context whose data files come from a map (the near-wall tests' stub). */
+export const context = stubContext;
 
 /** Calls an entry with its defaults filled in, the way the engine would. */
 export function call(name: string, args: Record<string, Value>, files: Record<string, string> = {}): RecordValue {
@@ -42,17 +34,16 @@ function defaults(fn: TradeFunction): Record<string, Value> {
   const out: Record<string, Value> = {};
   for (const p of fn.params) {
     if (p.default === undefined) continue;
-    out[p.name] = evaluate(parseExpression(p.default), {
+    const scope = makeScope({
       registry,
       budget: new Budget(DEFAULT_LIMITS),
       context: context(),
       lookup: () => {
         throw new Error('a default uses a name');
       },
-      defaultOf: () => {
-        throw new Error('a default calls a function');
-      },
+      defaults: new Map(),
     });
+    out[p.name] = evaluate(parseExpression(p.default), scope);
   }
   return out;
 }
