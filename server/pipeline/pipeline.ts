@@ -9,6 +9,8 @@ import { isStatement, parseExpression, parseLine, type BrokenLine, type ParsedLi
 import { dataReader, projectPath } from '../read/data-files.js';
 import { splitFrontMatter } from '../read/front-matter.js';
 import { normaliseNewlines, resplitParts, splitParts, type SourcePart, type SplitSheet } from '../read/parts.js';
+import { readDisplayUnits } from '../render/display-units.js';
+import { setPreferredUnits } from '../render/numbers.js';
 import { inlineKey, PartRenderer } from '../render/parts.js';
 import { buildReport } from './report.js';
 import type { RunOptions, SheetReport } from './types.js';
@@ -66,13 +68,17 @@ export class SheetPipeline {
 
     // render
     const sig = sigfigs(meta.sigfigs);
+    const display = readDisplayUnits(meta.units);
+    setPreferredUnits(display.units);
+    const settingLine = lineOfSetting(text, 'units');
+    const frontMatterProblems = [...(problem ? [problem] : []), ...display.problems.map((message) => ({ line: settingLine, message }))];
     const results = new Map(evaluation.results.map((r) => [r.stmt.line, r]));
     const parts = this.renderer.render({ sheet, blocks, results, inline: evaluation.inline, view: { sig, values: evaluation.values, lastGood: this.lastGood } });
 
     return buildReport({
       title: meta.title ?? firstHeading(body) ?? (path ? basename(path, '.md') : 'Worksheet'),
       meta,
-      frontMatterProblem: problem,
+      frontMatterProblems,
       broken,
       evaluation,
       inline,
@@ -150,6 +156,13 @@ function lastGoodValues(results: readonly StatementResult[], unparsed: Iterable<
 function sigfigs(s: string | undefined): number {
   const n = Number(s);
   return Number.isInteger(n) && n >= 1 && n <= 15 ? n : 4;
+}
+
+/** The file line of a front-matter key (1 when it cannot be found). */
+function lineOfSetting(text: string, key: string): number {
+  const lines = text.split('\n');
+  const at = lines.findIndex((l) => new RegExp(`^${key}\\s*:`).test(l));
+  return at < 0 ? 1 : at + 1;
 }
 
 function firstHeading(body: string): string | undefined {

@@ -12,8 +12,8 @@ import type { CheckJson, ErrorJson, SheetReport } from './types.js';
 export interface ReportInput {
   title: string;
   meta: Record<string, string>;
-  /** A problem reading the front matter, if any. */
-  frontMatterProblem?: { line: number; message: string } | undefined;
+  /** Problems reading the front matter or the settings in it. */
+  frontMatterProblems: readonly { line: number; message: string }[];
   broken: readonly BrokenLine[];
   evaluation: SheetEvaluation;
   inline: readonly InlineExpr[];
@@ -33,7 +33,7 @@ export function buildReport(input: ReportInput): SheetReport {
     errors.push({ line, column, message, code });
     problems.push({ line: problemLine, text: message, kind: 'error' });
   };
-  if (input.frontMatterProblem) error(input.frontMatterProblem.line, 1, input.frontMatterProblem.message, 'syntax');
+  for (const p of input.frontMatterProblems) error(p.line, 1, p.message, 'syntax');
   for (const d of input.broken) error(d.line, d.column, d.message, d.code);
   let inputs = 0;
   let results = 0;

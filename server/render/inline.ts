@@ -2,16 +2,18 @@
 // as a block, the last good value marked stale, or the error in words.
 import type { InlineResult } from '../evaluate/index.js';
 import { escapeHtml } from './html.js';
+import { displayKey } from './numbers.js';
 import { dataAttrs, displayText, valueHtml } from './values.js';
 
-const shown = new WeakMap<InlineResult, { sig: number; html: string }>();
+const shown = new WeakMap<InlineResult, { key: string; html: string }>();
 
 /** The html of one inline value; results reused across runs keep their html. */
 export function inlineHtml(text: string, result: InlineResult, sig: number): string {
+  const key = displayKey(sig);
   const hit = shown.get(result);
-  if (hit && hit.sig === sig) return hit.html;
+  if (hit && hit.key === key) return hit.html;
   const html = build(text, result, sig);
-  shown.set(result, { sig, html });
+  shown.set(result, { key, html });
   return html;
 }
 

@@ -1,7 +1,7 @@
 // Numbers as an engineer reads them: significant figures from the sheet,
 // scientific notation for very large or small values, and an engineering
 // prefix on simple SI units when the sheet chose no unit (2.3e-5 m → 23 µm).
-import type { Quantity } from '../units/quantity.js';
+import type { Quantity, Unit } from '../units/quantity.js';
 import { inUnit } from '../units/quantity.js';
 import { isDimensionless } from '../units/dims.js';
 import { PREFIXABLE, unitLabel } from '../units/labels.js';
@@ -24,8 +24,31 @@ const PREFIXES: Array<[string, number]> = [
   ['µ', 1e-6],
   ['n', 1e-9],
 ];
-// Prefixes that read naturally on each unit: no Mm or ks.
-const ALLOWED: Record<string, string> = { m: 'kmµn', s: 'mµn', Pa: 'GMkm', N: 'Mkm', W: 'GMkm', J: 'GMkm', 'N m': 'km' };
+// Prefixes that read naturally on each unit, as engineers write them: no Mm
+// or ks, and no mPa (a wall shear stress is written 0.41 Pa).
+const ALLOWED: Record<string, string> = { m: 'kmµn', s: 'mµn', Pa: 'GMk', N: 'Mkm', W: 'GMkm', J: 'GMkm', 'N m': 'km' };
+
+/** The units a sheet asked for (front matter `units:`), by the SI unit of their dimension. */
+let preferred: ReadonlyMap<string, Unit> = new Map();
+let preferredKey = '';
+
+/**
+ * Sets the units the running sheet shows its quantities in, by dimension
+ * ("Pa" → kPa). Rendering is synchronous, one sheet at a time: the pipeline
+ * sets them before it renders. Returns whether they changed since last time.
+ */
+export function setPreferredUnits(units: ReadonlyMap<string, Unit>): boolean {
+  const key = [...units].map(([k, u]) => `${k}=${u.text}`).join(';');
+  if (key === preferredKey) return false;
+  preferred = units;
+  preferredKey = key;
+  return true;
+}
+
+/** Changes whenever the preferred units do: part of every display cache's key. */
+export function displayKey(sig: number): string {
+  return `${sig};${preferredKey}`;
+}
 
 function roundSig(x: number, sig: number): number {
   return Number(x.toPrecision(sig));
@@ -58,6 +81,8 @@ export function showQuantity(q: Quantity, sig: number): Shown {
   }
   if (isDimensionless(q.dims)) return { ...formatNumber(q.si, sig), unit: '' };
   const label = unitLabel(q.dims);
+  const wanted = q.unit ? undefined : preferred.get(label);
+  if (wanted && !q.absolute) return { ...formatNumber(q.si / wanted.factor, sig), unit: wanted.text };
   const allowed = ALLOWED[label];
   if (PREFIXABLE.has(label) && allowed !== undefined && q.si !== 0) {
     const mag = Math.abs(roundSig(q.si, sig));
@@ -97,7 +122,9 @@ export function unitPlain(unit: string): string {
 }
 
 export function shownPlain(s: Shown): string {
-  const n = s.exponent === 0 ? s.mantissa : `${s.mantissa}×10${superscript(String(s.exponent))}`;
+  // A real minus sign in text; LaTeX sets its own.
+  const mantissa = s.mantissa.replace('-', '\u2212');
+  const n = s.exponent === 0 ? mantissa : `${mantissa}×10${superscript(String(s.exponent))}`;
   if (!s.unit) return n;
   return s.unit === '%' ? `${n} %` : `${n} ${unitPlain(s.unit)}`;
 }

@@ -8,6 +8,7 @@ import type { BrokenLine, ParsedLine, Statement } from '../parse/index.js';
 import { isStatement } from '../parse/index.js';
 import type { InlineSource, SplitSheet } from '../read/parts.js';
 import { inlineHtml } from './inline.js';
+import { displayKey } from './numbers.js';
 import { inlineValueSpans, proseHtml } from './prose.js';
 import { errorHtml, lastGoodHtml, statementHtml, type StatementView } from './statement.js';
 
@@ -46,8 +47,16 @@ export class PartRenderer {
   private readonly parts = new Map<string, Memo>();
   /** Rendered statements of the last runs, by line and text. */
   private statements = new Map<string, Memo>();
+  /** How numbers were shown last time (figures, units): every memo holds for one. */
+  private display = '';
 
   render(input: PartsInput): SheetPart[] {
+    const display = displayKey(input.view.sig);
+    if (display !== this.display) {
+      this.parts.clear();
+      this.statements.clear();
+      this.display = display;
+    }
     const out: SheetPart[] = [];
     let blockIndex = 0;
     let statementCount = 0;

@@ -3,6 +3,7 @@
 // their items, and tables (and sweeps of records) as columns and rows.
 import type { ListValue, RecordValue, Value } from '../core/index.js';
 import { unitLabel } from '../units/labels.js';
+import { displayKey } from './numbers.js';
 import { displayText } from './value-text.js';
 
 /** A value as `wakesheet eval --json` and the library hand it on. */
@@ -23,13 +24,14 @@ export interface ValueJson {
 export const JSON_ITEMS_MAX = 10_000;
 
 // Values are immutable and reused across runs, so their JSON is too.
-const jsonCache = new WeakMap<Value, { sig: number; json: ValueJson }>();
+const jsonCache = new WeakMap<Value, { key: string; json: ValueJson }>();
 
 export function valueJson(v: Value, sig: number): ValueJson {
+  const key = displayKey(sig);
   const hit = jsonCache.get(v);
-  if (hit && hit.sig === sig) return hit.json;
+  if (hit && hit.key === key) return hit.json;
   const json = computeJson(v, sig);
-  jsonCache.set(v, { sig, json });
+  jsonCache.set(v, { key, json });
   return json;
 }
 

@@ -4,7 +4,7 @@
 // comes from the engine (already sanitised); everything that comes from the
 // file system or the front matter and lands here is escaped. Scripts load
 // from /assets only.
-import { escapeHtml } from '../core/index.js';
+import { countText, escapeHtml } from '../core/index.js';
 import type { IndexEntry, SheetCondition, SheetUpdate } from './protocol.js';
 
 /** URL of a sheet's page, each path segment encoded. */
@@ -88,9 +88,10 @@ export function indexPage(folderName: string, entries: IndexEntry[]): string {
 <body class="live-index-page">
 ${bar(`<span class="live-crumb">${escapeHtml(folderName)}</span>`)}
 <main class="live-index">
-<h1>Worksheets in ${escapeHtml(folderName)}</h1>
+<h1>Worksheets</h1>
+<p class="live-folder">The folder <code>${escapeHtml(folderName)}</code>: ${escapeHtml(countText(entries.length, 'sheet'))}, each updated as it is saved.</p>
 <table class="live-sheets">
-<thead><tr><th>Sheet</th><th>Checks passed</th><th>Checks failed</th><th>Errors</th><th>Last evaluated</th></tr></thead>
+<thead><tr><th>Sheet</th><th class="live-num">Checks passed</th><th class="live-num">Checks failed</th><th class="live-num">Errors</th><th>Last evaluated</th></tr></thead>
 <tbody>
 ${indexRowsHtml(entries)}
 </tbody>

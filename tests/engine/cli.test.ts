@@ -56,4 +56,39 @@ describe('wakesheet CLI', () => {
     expect(help.code).toBe(0);
     expect(help.stdout).toContain('wakesheet check [DIR]');
   });
+
+  it('refuses what is not one sheet in one plain line, exit 2: a folder, a data file, an unknown flag', async () => {
+    const folder = await run(['eval', dir]);
+    expect(folder.code).toBe(2);
+    expect(folder.stderr.trim().split('\n')).toHaveLength(1);
+    expect(folder.stderr).toContain('is a folder; eval takes one sheet');
+    writeFileSync(join(dir, 'data.csv'), 'a,b\n1,2\n');
+    const csv = await run(['eval', join(dir, 'data.csv')]);
+    expect([csv.code, csv.stderr]).toEqual([2, expect.stringContaining('is not a sheet')]);
+    const flag = await run(['eval', join(dir, 'good.md'), '--jsn']);
+    expect(flag.code).toBe(2);
+    expect(flag.stderr).toContain('unknown option --jsn; did you mean --json?');
+    expect(flag.stdout).toBe('');
+  });
+
+  it('render -o refuses a missing folder, the sheet itself and any .md file, in one line', async () => {
+    const missing = await run(['render', join(dir, 'good.md'), '-o', join(dir, 'no', 'such', 'x.html')]);
+    expect(missing.code).toBe(2);
+    expect(missing.stderr).toMatch(/^wakesheet render: cannot write .*x\.html: the folder .* does not exist/);
+    expect(missing.stderr).not.toContain('    at ');
+    const self = await run(['render', join(dir, 'good.md'), '-o', join(dir, 'good.md')]);
+    expect([self.code, self.stderr]).toEqual([2, expect.stringContaining('is the sheet itself')]);
+    expect(readFileSync(join(dir, 'good.md'), 'utf8')).toMatch(/^# Good/);
+    const md = await run(['render', join(dir, 'good.md'), '-o', join(dir, 'notes.md')]);
+    expect([md.code, md.stderr]).toEqual([2, expect.stringContaining('would overwrite a Markdown file')]);
+  });
+
+  it('prints the fields of records under their name, and its version', async () => {
+    writeFileSync(join(dir, 'rec.md'), '```basis\nw = air(T: 15 degC)\n```\n');
+    const r = await run(['eval', join(dir, 'rec.md')]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/^w:\n  rho = 1\.225 kg\/m³\n/);
+    const v = await run(['--version']);
+    expect([v.code, v.stdout]).toEqual([0, expect.stringMatching(/^wakesheet \d+\.\d+\.\d+\n$/)]);
+  });
 });

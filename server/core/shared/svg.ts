@@ -27,7 +27,7 @@ export function verticalText(x: number, y: number, content: string, attrs = ''):
 
 export function svgDocument(width: number, height: number, title: string, body: string[]): string {
   return [
-    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" font-family="sans-serif" font-size="11">`,
+    `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" font-family="sans-serif" font-size="12">`,
     `<title>${escapeHtml(title)}</title>`,
     `<rect x="0" y="0" width="${width}" height="${height}" fill="#ffffff"/>`,
     ...body,

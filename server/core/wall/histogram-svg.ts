@@ -50,11 +50,11 @@ export function histogramSvg(h: HistogramInput): string {
   const bandR = Math.max(X0, Math.min(X1, xAt(Math.min(h.band[1], hi))));
   if (bandR > bandL) {
     body.push(`<rect x="${px(bandL)}" y="${px(Y1)}" width="${px(bandR - bandL)}" height="${px(Y0 - Y1)}" fill="#dcefd6"/>`);
-    body.push(text((bandL + bandR) / 2, Y1 - 4, `band ${numberText(h.band[0])}–${numberText(h.band[1])}`, 'text-anchor="middle" fill="#2f6b2a" font-size="9"'));
+    body.push(text((bandL + bandR) / 2, Y1 - 4, `band ${numberText(h.band[0])}–${numberText(h.band[1])}`, 'text-anchor="middle" fill="#2f6b2a" font-size="11"'));
   }
   for (let t = 0; t <= yTop * (1 + 1e-9); t += yStep) {
     body.push(`<path d="M${px(X0 - 4)} ${px(yAt(t))}H${px(X0)}" stroke="#555555" stroke-width="0.8"/>`);
-    body.push(text(X0 - 6, yAt(t) + 3, `${numberText(t)} %`, 'text-anchor="end" font-size="9"'));
+    body.push(text(X0 - 6, yAt(t) + 3, `${numberText(t)} %`, 'text-anchor="end" font-size="11"'));
   }
   const bw = (X1 - X0) / n;
   shares.forEach((s, k) => {
@@ -65,17 +65,18 @@ export function histogramSvg(h: HistogramInput): string {
   if (h.target >= lo && h.target <= hi) {
     const xt = xAt(h.target);
     body.push(`<path d="M${px(xt)} ${px(Y1)}V${px(Y0)}" stroke="#a33b20" stroke-width="1.2" stroke-dasharray="5 3" fill="none"/>`);
-    body.push(text(xt + 3, Y1 + 10, `target ${numberText(h.target)}`, 'fill="#a33b20" font-size="9"'));
+    // A white halo keeps the label legible over the bars and off its own line.
+    body.push(text(xt + 5, Y1 + 12, `target ${numberText(h.target)}`, 'fill="#a33b20" font-size="11" stroke="#ffffff" stroke-width="3" paint-order="stroke"'));
   }
   for (const t of xTicks(lo, hi, log)) {
     const x = xAt(t);
     body.push(`<path d="M${px(x)} ${px(Y0)}V${px(Y0 + 4)}" stroke="#555555" stroke-width="0.8"/>`);
-    body.push(text(x, Y0 + 15, numberText(t), 'text-anchor="middle" font-size="9"'));
+    body.push(text(x, Y0 + 15, numberText(t), 'text-anchor="middle" font-size="11"'));
   }
   body.push(`<path d="M${px(X0)} ${px(Y1)}V${px(Y0)}H${px(X1)}" stroke="#555555" stroke-width="0.8" fill="none"/>`);
   body.push(text((X0 + X1) / 2, Y0 + 32, log ? 'y+ (log scale)' : 'y+', 'text-anchor="middle"'));
   const share = h.weighted ? 'share of wall area' : 'share of faces';
-  body.push(verticalText(14, (Y0 + Y1) / 2, share, 'font-size="9"'));
+  body.push(verticalText(14, (Y0 + Y1) / 2, share, 'font-size="11"'));
   body.push(text(8, 16, `y+ over ${h.values.length} wall faces`, 'font-weight="bold"'));
   return svgDocument(W, H, `Histogram of y+ (${share})`, body);
 }

@@ -72,7 +72,7 @@ export function stackSvg(p: StackPicture): string {
   for (const l of placeLabels(labels)) body.push(text(RIGHT + 6, l.y, l.text, l.colour ? `fill="${l.colour}"` : ''));
   const heading = `${p.heights.length} layers, growth ${numberText(p.growth)} (${p.scale} scale)`;
   body.push(text(8, 16, heading, 'font-weight="bold"'));
-  if (skipped) body.push(text(8, H - 8, `${skipped} layer lines thinner than a pixel are not drawn separately`, 'font-size="9"'));
+  if (skipped) body.push(text(8, H - 8, `${skipped} layer lines thinner than a pixel are not drawn separately`, 'font-size="11"'));
   return svgDocument(W, H, `Wall-layer stack: ${heading}`, body);
 }
 
@@ -128,11 +128,11 @@ function axis(map: AxisMap, scale: StackScale): string[] {
   for (const t of map.ticks) {
     const yy = map.at(t);
     out.push(`<path d="M${px(AXIS_X - 4)} ${px(yy)}H${px(AXIS_X)}" stroke="#555555" stroke-width="0.8"/>`);
-    out.push(text(AXIS_X - 6, yy + 4, t === 0 ? '0' : lengthText(t), 'text-anchor="end" font-size="9"'));
+    out.push(text(AXIS_X - 6, yy + 4, t === 0 ? '0' : lengthText(t), 'text-anchor="end" font-size="11"'));
   }
   const mid = (TOP + WALL) / 2;
   const label = scale === 'log' ? 'distance from wall (log axis; the wall lies below its lowest tick)' : 'distance from wall';
-  out.push(verticalText(12, mid, label, 'font-size="9"'));
+  out.push(verticalText(12, mid, label, 'font-size="11"'));
   return out;
 }
 
