@@ -39,6 +39,8 @@ export function createSheetView(status, send) {
     body.dataset.version = String(update.version);
     document.title = `${update.title} · Wakesheet`;
     if (location.pathname !== update.url) history.replaceState(null, '', update.url);
+    const record = document.querySelector('a.live-record');
+    if (record && record.getAttribute('href') !== update.recordUrl) record.setAttribute('href', update.recordUrl);
     showCondition(update.condition);
     restorePlace(); // after everything above the reader's place has changed, notice included
     if (update.base !== null) updating();

@@ -21,7 +21,7 @@ export async function checkCommand(argv: string[]): Promise<number> {
   try {
     for (const file of findSheets(dir)) {
       sheets++;
-      const r = await runOne(sandbox, file, dir);
+      const { result: r } = await runOne(sandbox, file, dir);
       const rel = relative(process.cwd(), file) || file;
       for (const e of r.errors) {
         bad++;

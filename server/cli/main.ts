@@ -1,16 +1,22 @@
-// The wakesheet command: argv → one of eval, render, check, serve. Every
+// The wakesheet command: argv → one of eval, render, check, verify, export, serve. Every
 // failure is one plain line: exit 2 for bad usage, 1 for a sheet that fails.
 import { CHECK_HELP, checkCommand } from './check.js';
 import { EVAL_HELP, evalCommand } from './eval.js';
+import { EXPORT_HELP, exportCommand } from './export.js';
 import { RENDER_HELP, renderCommand } from './render.js';
-import { UsageError, version } from './shared.js';
+import { VERIFY_HELP, verifyCommand } from './verify.js';
+import { packageVersion } from '../read/paths.js';
+import { UsageError } from './shared.js';
 
 const USAGE = `wakesheet — design-basis worksheets for external-flow CFD set-ups
 
 usage:
   wakesheet eval SHEET.md [--json] [--root DIR]   evaluate one sheet, print its values
-  wakesheet render SHEET.md -o OUT.html [--root DIR]
-                                                write the rendered sheet as one HTML file
+  wakesheet render SHEET.md -o RECORD.html [--root DIR]
+                                                write the set-up record: one self-contained HTML file
+  wakesheet verify RECORD.html [--root DIR]     run a record again; list what changed since
+  wakesheet export SHEET.md --json|--csv [-o FILE]
+                                                every value, for scripts
   wakesheet check [DIR]                          evaluate every sheet under DIR; list failures
   wakesheet serve [DIR] [--port N] [--host H]    serve DIR's sheets live in the browser
   wakesheet COMMAND --help                       help on one command
@@ -27,6 +33,8 @@ const COMMANDS: Record<string, Command> = {
   eval: { help: EVAL_HELP, run: evalCommand },
   render: { help: RENDER_HELP, run: renderCommand },
   check: { help: CHECK_HELP, run: checkCommand },
+  verify: { help: VERIFY_HELP, run: verifyCommand },
+  export: { help: EXPORT_HELP, run: exportCommand },
 };
 
 export async function main(argv: string[]): Promise<number> {
@@ -36,7 +44,7 @@ export async function main(argv: string[]): Promise<number> {
     return cmd ? 0 : 2;
   }
   if (cmd === '--version' || cmd === '-v' || cmd === 'version') {
-    process.stdout.write(`wakesheet ${version()}\n`);
+    process.stdout.write(`wakesheet ${packageVersion()}\n`);
     return 0;
   }
   if (cmd === 'serve') {
@@ -46,7 +54,7 @@ export async function main(argv: string[]): Promise<number> {
   }
   const command = Object.hasOwn(COMMANDS, cmd) ? COMMANDS[cmd] : undefined;
   if (!command) {
-    process.stderr.write(`wakesheet: unknown command "${cmd}"; the commands are eval, render, check and serve (wakesheet --help)\n`);
+    process.stderr.write(`wakesheet: unknown command "${cmd}"; the commands are eval, render, check, verify, export and serve (wakesheet --help)\n`);
     return 2;
   }
   if (rest.includes('--help') || rest.includes('-h')) {

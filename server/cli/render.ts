@@ -1,12 +1,16 @@
 // `wakesheet render SHEET.md -o OUT.html [--root DIR]`: the standalone record.
 import { dirname, extname, resolve } from 'node:path';
+import { recordData, recordPage } from '../pipeline/record.js';
 import { failing, parseArgs, runOne, Sandbox, sheetArgument, UsageError, writeOutput, type FlagSpec } from './shared.js';
 
 export const RENDER_HELP = `wakesheet render SHEET.md -o OUT.html [--root DIR]
 
-Writes the rendered sheet as one self-contained HTML file (KaTeX fonts inlined),
-to archive as the set-up record. The file is written whole or not at all, and
-never over the sheet itself or any other .md file.`;
+Writes the set-up record: the rendered sheet as one self-contained HTML file
+that opens offline (KaTeX fonts, figures and images inside it, no request of any
+kind), with its provenance: the sheet's source, the SHA-256 of every source and
+data file, the version, the time, the front matter and every input. Check it
+later with wakesheet verify. The file is written whole or not at all, and never
+over the sheet itself or any other .md file.`;
 
 const FLAGS: FlagSpec = { flags: { output: 'value', root: 'value' }, short: { o: 'output' } };
 
@@ -20,12 +24,12 @@ export async function renderCommand(argv: string[]): Promise<number> {
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
   const sandbox = new Sandbox();
   try {
-    const r = await runOne(sandbox, file, root);
-    if (!r.html) {
-      process.stderr.write(`${file}: ${r.errors[0]?.message}\n`);
+    const { result: r, text, failure } = await runOne(sandbox, file, root);
+    if (failure) {
+      process.stderr.write(`${file}: ${failure}\n`);
       return 1;
     }
-    writeOutput(out, r.html);
+    writeOutput(out, recordPage(r, recordData(r, { source: text, path: resolve(file), root })));
     process.stdout.write(`wrote ${out} (${r.summary.checksPassed} checks passed, ${r.summary.checksFailed} failed, ${r.summary.errors} errors)\n`);
     return failing(r) ? 1 : 0;
   } finally {

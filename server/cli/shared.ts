@@ -4,8 +4,7 @@
 import { existsSync, readFileSync, renameSync, statSync, unlinkSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { nearestWord } from '../core/index.js';
-import type { SheetResult } from '../pipeline/index.js';
-import { packageRoot } from '../read/paths.js';
+import { emptyReport, type SheetResult } from '../pipeline/index.js';
 import { isSheetFile } from '../read/sheet-files.js';
 import { Sandbox, SandboxError } from '../sandbox/sandbox.js';
 
@@ -65,22 +64,22 @@ export function sheetArgument(file: string, command: string): string {
   return file;
 }
 
-/** Runs one sheet; a sandbox failure (timeout, memory, crash) comes back as the sheet's one error. */
-export async function runOne(sandbox: Sandbox, file: string, root: string): Promise<SheetResult> {
-  try {
-    return await sandbox.run(readFileSync(file, 'utf8'), { path: resolve(file), root });
-  } catch (e) {
-    if (!(e instanceof SandboxError)) throw e;
-    return failedResult(e.message);
-  }
+/** A run of one sheet; `failure` says why the sandbox could not finish it (then the result holds only that error). */
+export interface OneRun {
+  result: SheetResult;
+  text: string;
+  failure?: string;
 }
 
-function failedResult(message: string): SheetResult {
-  return {
-    title: '', meta: {}, html: '', headerHtml: '', caution: false, parts: [], summaryHtml: '', elapsedMs: 0, reads: [], values: {}, checks: [], freshStatements: 0,
-    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 1 },
-    errors: [{ line: 1, column: 1, message, code: 'limit' }],
-  };
+/** Runs one sheet; a sandbox failure (timeout, memory, crash) comes back as the sheet's one error. */
+export async function runOne(sandbox: Sandbox, file: string, root: string, text = readFileSync(file, 'utf8')): Promise<OneRun> {
+  try {
+    return { result: await sandbox.run(text, { path: resolve(file), root }), text };
+  } catch (e) {
+    if (!(e instanceof SandboxError)) throw e;
+    const report = emptyReport({ summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 1 }, errors: [{ line: 1, column: 1, message: e.message, code: 'limit' }] });
+    return { result: { ...report, html: '' }, text, failure: e.message };
+  }
 }
 
 export function failing(r: SheetResult): boolean {
@@ -111,8 +110,5 @@ export function writeOutput(target: string, text: string): void {
   }
 }
 
-export function version(): string {
-  return (JSON.parse(readFileSync(join(packageRoot(), 'package.json'), 'utf8')) as { version: string }).version;
-}
 
 export { Sandbox };

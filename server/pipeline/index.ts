@@ -1,4 +1,5 @@
 // The pipeline's public surface.
 export { SheetPipeline, type PipelineOptions } from './pipeline.js';
 export { renderSheet, standalonePage, withPage } from './library.js';
+export { emptyReport } from './report.js';
 export type * from './types.js';

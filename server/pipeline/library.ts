@@ -2,7 +2,7 @@
 // process (interpreter limits apply); the server and CLI run the same
 // pipeline inside the sandbox child instead.
 import { standaloneCss } from '../render/assets.js';
-import { pageHtml } from '../render/page.js';
+import { pageHtml, RECORD_POLICY } from '../render/page.js';
 import { SheetPipeline } from './pipeline.js';
 import type { RunOptions, SheetReport, SheetResult } from './types.js';
 
@@ -13,7 +13,7 @@ export function standalonePage(report: SheetReport): string {
     headerHtml: report.headerHtml,
     summaryHtml: report.summaryHtml,
     parts: report.parts,
-    head: `<style>${standaloneCss()}</style>`,
+    head: `<meta http-equiv="Content-Security-Policy" content="${RECORD_POLICY}"><style>${standaloneCss()}</style>`,
   });
 }
 

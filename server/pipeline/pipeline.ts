@@ -7,6 +7,7 @@ import { diagnostic, SheetError } from '../diagnostics.js';
 import { DEFAULT_LIMITS, EvalCache, evaluateSheet, type InlineExpr, type Limits, type StatementResult } from '../evaluate/index.js';
 import { isStatement, parseExpression, parseLine, type BrokenLine, type ParsedLine, type Statement } from '../parse/index.js';
 import { dataReader, projectPath } from '../read/data-files.js';
+import { loadImages, type ImageCache } from '../read/images.js';
 import { splitFrontMatter } from '../read/front-matter.js';
 import { normaliseNewlines, resplitParts, splitParts, type SourcePart, type SplitSheet } from '../read/parts.js';
 import { readDisplayUnits } from '../render/display-units.js';
@@ -27,6 +28,8 @@ export class SheetPipeline {
   private lastGood: Map<string, Value> = new Map();
   /** Parsed lines by place and text: an unchanged line is not parsed again. */
   private parsedLines = new Map<string, ParsedLine | null>();
+  /** Images embedded in the prose, read again only when their file changes. */
+  private readonly images: ImageCache = new Map();
   /** Inline expressions by line and text, parsed once. */
   private parsedInline = new Map<string, InlineExpr>();
   /** The last body text and its parts, for cheap re-splitting after an edit inside a block. */
@@ -66,6 +69,9 @@ export class SheetPipeline {
     const evaluation = evaluateSheet(statements, { registry: this.registry, limits: this.limits, readData, cache: this.cache, failedNames, inline, fallback });
     this.lastGood = lastGoodValues(evaluation.results, failedNames.keys(), this.lastGood);
 
+    const imageSources = sheet.parts.flatMap((p) => (p.kind === 'prose' ? p.images : []));
+    const images = loadImages(root, sheetDir, imageSources, this.images);
+
     // render
     const sig = sigfigs(meta.sigfigs);
     const display = readDisplayUnits(meta.units);
@@ -73,18 +79,23 @@ export class SheetPipeline {
     const settingLine = lineOfSetting(text, 'units');
     const frontMatterProblems = [...(problem ? [problem] : []), ...display.problems.map((message) => ({ line: settingLine, message }))];
     const results = new Map(evaluation.results.map((r) => [r.stmt.line, r]));
-    const parts = this.renderer.render({ sheet, blocks, results, inline: evaluation.inline, view: { sig, values: evaluation.values, lastGood: this.lastGood } });
+    const parts = this.renderer.render({ sheet, blocks, results, inline: evaluation.inline, images, view: { sig, values: evaluation.values, lastGood: this.lastGood } });
+    const imageProblems = imageSources.flatMap((i) => {
+      const loaded = images.get(i.src);
+      return loaded && 'error' in loaded ? [{ line: i.line, message: loaded.error }] : [];
+    });
 
     return buildReport({
       title: meta.title ?? firstHeading(body) ?? (path ? basename(path, '.md') : 'Worksheet'),
       meta,
       frontMatterProblems,
+      imageProblems,
       broken,
       evaluation,
       inline,
       parts,
       sig,
-      reads: evaluation.reads.map((p) => projectPath(root, sheetDir, p)),
+      reads: [...new Set([...evaluation.reads, ...imageSources.filter((i) => !/^[a-z][a-z0-9+.-]*:|^\/\//i.test(i.src)).map((i) => i.src)])].map((p) => projectPath(root, sheetDir, p)),
       elapsedMs: performance.now() - t0,
     });
   }

@@ -2,18 +2,19 @@
 // errors, the summary and the values as JSON. A pure function of its input.
 import type { Value } from '../core/index.js';
 import type { InlineExpr, SheetEvaluation } from '../evaluate/index.js';
-import type { BrokenLine } from '../parse/index.js';
-import { isLiteral } from '../render/statement.js';
+import { isLiteral, literalArguments, literalText, type BrokenLine } from '../parse/index.js';
 import { sheetHeaderHtml, summaryHtml, type SummaryItem } from '../render/page.js';
 import type { SheetPart } from '../render/parts.js';
 import { valueJson, type ValueJson } from '../render/value-json.js';
-import type { CheckJson, ErrorJson, SheetReport } from './types.js';
+import type { ArgumentJson, CheckJson, ErrorJson, InputJson, SheetReport } from './types.js';
 
 export interface ReportInput {
   title: string;
   meta: Record<string, string>;
   /** Problems reading the front matter or the settings in it. */
   frontMatterProblems: readonly { line: number; message: string }[];
+  /** Images that could not be embedded. */
+  imageProblems: readonly { line: number; message: string }[];
   broken: readonly BrokenLine[];
   evaluation: SheetEvaluation;
   inline: readonly InlineExpr[];
@@ -35,6 +36,7 @@ export function buildReport(input: ReportInput): SheetReport {
   };
   for (const p of input.frontMatterProblems) error(p.line, 1, p.message, 'syntax');
   for (const d of input.broken) error(d.line, d.column, d.message, d.code);
+  for (const p of input.imageProblems) error(p.line, 1, p.message, 'data-file');
   let inputs = 0;
   let results = 0;
   let checksNotRun = 0;
@@ -57,7 +59,18 @@ export function buildReport(input: ReportInput): SheetReport {
   errors.sort((a, b) => a.line - b.line || a.column - b.column);
   problems.sort((a, b) => a.line - b.line);
   const values: Record<string, ValueJson> = {};
-  for (const [name, v] of evaluation.values) values[name] = valueJson(v, input.sig);
+  const inputsList: InputJson[] = [];
+  const args: ArgumentJson[] = [];
+  for (const r of evaluation.results) {
+    const name = r.stmt.type === 'define' ? r.stmt.name : '';
+    for (const a of literalArguments(r.stmt.expr)) args.push({ line: r.stmt.line, name, ...a });
+    if (r.stmt.type !== 'define') continue;
+    const v = evaluation.values.get(r.stmt.name);
+    if (!v) continue;
+    values[r.stmt.name] = withNotes(valueJson(v, input.sig), r.warnings);
+    const text = isLiteral(r.stmt.expr) ? literalText(r.stmt.expr) : undefined;
+    if (text !== undefined) inputsList.push({ name: r.stmt.name, line: r.stmt.line, text, value: values[r.stmt.name]! });
+  }
   const summary = {
     inputs,
     results,
@@ -75,6 +88,8 @@ export function buildReport(input: ReportInput): SheetReport {
     summaryHtml: summaryHtml(summary, problems),
     summary,
     values,
+    inputs: inputsList,
+    arguments: args,
     checks,
     errors,
     reads: input.reads,
@@ -84,8 +99,37 @@ export function buildReport(input: ReportInput): SheetReport {
   };
 }
 
+/** A value's JSON with the warnings its statement raised (a record's own are in its JSON already). */
+function withNotes(json: ValueJson, warnings: readonly string[]): ValueJson {
+  return warnings.length ? { ...json, warnings: [...(json.warnings ?? []), ...warnings] } : json;
+}
+
 function needsCaution(v: Value): boolean {
   if (v.kind === 'record') return v.tag === 'caution' || [...v.fields.values()].some((f) => needsCaution(f.value));
   if (v.kind === 'list') return v.items.some(needsCaution);
   return false;
+}
+
+/** A report with nothing in it but what `fields` says: for a run that could not happen (the sandbox failed) and for stand-ins. */
+export function emptyReport(fields: Partial<SheetReport> = {}): SheetReport {
+  const title = fields.title ?? '';
+  const meta = fields.meta ?? {};
+  return {
+    title,
+    meta,
+    headerHtml: sheetHeaderHtml(title, meta, false),
+    parts: [],
+    summaryHtml: '',
+    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 0 },
+    values: {},
+    inputs: [],
+    arguments: [],
+    checks: [],
+    errors: [],
+    reads: [],
+    elapsedMs: 0,
+    caution: false,
+    freshStatements: 0,
+    ...fields,
+  };
 }

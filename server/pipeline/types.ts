@@ -20,6 +20,26 @@ export interface ErrorJson {
   code?: string;
 }
 
+/** An input of the sheet: a name defined by a literal, with its value. */
+export interface InputJson {
+  name: string;
+  line: number;
+  /** As written on the sheet: `110 km/h`. */
+  text: string;
+  value: ValueJson;
+}
+
+/** A literal argument of a call: `air(T: 28 degC)` gives {fn: "air", arg: "T", text: "28 degC"}. */
+export interface ArgumentJson {
+  line: number;
+  /** The name the statement defines, or "" for a check or a bare expression. */
+  name: string;
+  fn: string;
+  /** The parameter's name, or "#2" for the second positional argument. */
+  arg: string;
+  text: string;
+}
+
 /** One run of the pipeline over a sheet: everything but the standalone page. */
 export interface SheetReport {
   title: string;
@@ -32,7 +52,11 @@ export interface SheetReport {
   /** The summary panel's HTML (outside <main>). */
   summaryHtml: string;
   summary: SheetSummary;
+  /** Every defined value, with the warnings and remarks of its statement. */
   values: Record<string, ValueJson>;
+  /** The inputs (names defined by a literal) and the literal arguments of calls, for the record. */
+  inputs: InputJson[];
+  arguments: ArgumentJson[];
   checks: CheckJson[];
   errors: ErrorJson[];
   /** Data files the sheet read, as paths relative to the project root. */

@@ -12,6 +12,18 @@ const MAX_BYTES = 16 * 1024 * 1024;
  * confined to `root`. Paths given to it come from sheet text: check all of it.
  */
 export function dataReader(root: string, sheetDir: string): (relativePath: string) => string {
+  const file = dataFileLocator(root, sheetDir);
+  return (relativePath: string) => readFileSync(file(relativePath), 'utf8');
+}
+
+/** The same confinement, for files read as bytes (images embedded in a record, hashes of data files). */
+export function dataBytesReader(root: string, sheetDir: string): (relativePath: string) => Buffer {
+  const file = dataFileLocator(root, sheetDir);
+  return (relativePath: string) => readFileSync(file(relativePath));
+}
+
+/** The real path of a data file named relative to the sheet, once every rule is checked. */
+export function dataFileLocator(root: string, sheetDir: string): (relativePath: string) => string {
   const realRoot = realpathSync(root);
   return (relativePath: string) => {
     if (relativePath.includes('\0')) throw new SheetError('data-file', 'a file name cannot contain a NUL character');
@@ -30,7 +42,7 @@ export function dataReader(root: string, sheetDir: string): (relativePath: strin
     const st = statSync(real);
     if (!st.isFile()) throw new SheetError('data-file', `"${relativePath}" is not a file`);
     if (st.size > MAX_BYTES) throw new SheetError('data-file', `"${relativePath}" is larger than ${MAX_BYTES / 1024 / 1024} MiB`);
-    return readFileSync(real, 'utf8');
+    return real;
   };
 }
 

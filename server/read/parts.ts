@@ -20,7 +20,13 @@ export interface InlineSource {
   line: number;
 }
 
-export type ProsePart = { kind: 'prose'; tokens: Token[]; firstLine: number; raw: string; inline: InlineSource[] };
+/** An image in prose, `![alt](src)`: embedded from the project folder, never fetched. */
+export interface ImageSource {
+  src: string;
+  line: number;
+}
+
+export type ProsePart = { kind: 'prose'; tokens: Token[]; firstLine: number; raw: string; inline: InlineSource[]; images: ImageSource[] };
 export type BlockPart = { kind: 'block'; fenceLine: number; lines: BlockLine[] };
 export type SourcePart = ProsePart | BlockPart;
 
@@ -46,7 +52,7 @@ export function splitParts(text: string): SplitSheet {
   let proseLine = 1;
   let proseRaw = '';
   const flush = () => {
-    if (prose.length) parts.push({ kind: 'prose', tokens: prose, firstLine: proseLine, raw: proseRaw, inline: inlineSources(prose, proseRaw, proseLine) });
+    if (prose.length) parts.push({ kind: 'prose', tokens: prose, firstLine: proseLine, raw: proseRaw, ...proseSources(prose, proseRaw, proseLine) });
     prose = [];
     proseRaw = '';
   };
@@ -66,25 +72,41 @@ export function splitParts(text: string): SplitSheet {
   return { parts, links: tokens.links };
 }
 
-/** The `=expr` code spans of a prose part, in document order, with their file lines. */
-function inlineSources(tokens: Token[], raw: string, firstLine: number): InlineSource[] {
-  const out: InlineSource[] = [];
-  // Code spans come in source order: each is looked for after the one before,
-  // so that `=x` quoted inside a longer span does not take x's place.
+/** The `=expr` code spans and the images of a prose part, in document order, with their file lines. */
+function proseSources(tokens: Token[], raw: string, firstLine: number): { inline: InlineSource[]; images: ImageSource[] } {
+  const inline: InlineSource[] = [];
+  const images: ImageSource[] = [];
+  // Tokens come in source order: each is looked for after the one before, so
+  // that `=x` quoted inside a longer span does not take x's place.
   let cursor = 0;
-  walkInline(tokens, (span) => {
-    const at = raw.indexOf(span.raw, cursor);
-    if (at >= 0) cursor = at + span.raw.length;
+  const lineOf = (tokenRaw: string) => {
+    const at = raw.indexOf(tokenRaw, cursor);
+    if (at >= 0) cursor = at + tokenRaw.length;
+    return firstLine + countNewlines(raw.slice(0, Math.max(0, at)));
+  };
+  walkInline(tokens, (t) => {
+    if (t.type === 'image') {
+      images.push({ src: (t as Tokens.Image).href, line: lineOf(t.raw) });
+      return;
+    }
+    if (t.type === 'html') {
+      // An <img> written as HTML is embedded, or refused, like a Markdown one.
+      const line = lineOf(t.raw);
+      for (const m of t.raw.matchAll(/<img\b[^>]*?\ssrc\s*=\s*(?:"([^"]*)"|'([^']*)'|([^\s>]+))/gi)) images.push({ src: m[1] ?? m[2] ?? m[3]!, line });
+      return;
+    }
+    const span = t as Tokens.Codespan;
+    const line = lineOf(span.raw);
     const text = span.text.slice(1).trim();
     if (!span.text.startsWith('=') || span.text.startsWith('==') || text === '') return;
-    out.push({ text, line: firstLine + countNewlines(raw.slice(0, Math.max(0, at))) });
+    inline.push({ text, line });
   });
-  return out;
+  return { inline, images };
 }
 
-function walkInline(tokens: readonly Token[], visit: (span: Tokens.Codespan) => void): void {
+function walkInline(tokens: readonly Token[], visit: (t: Token) => void): void {
   for (const t of tokens) {
-    if (t.type === 'codespan') visit(t as Tokens.Codespan);
+    if (t.type === 'codespan' || t.type === 'image' || t.type === 'html') visit(t);
     const any = t as { tokens?: Token[]; items?: Token[]; header?: { tokens: Token[] }[]; rows?: { tokens: Token[] }[][] };
     if (any.tokens) walkInline(any.tokens, visit);
     if (any.items) walkInline(any.items, visit);

@@ -1,6 +1,6 @@
 // Where files may be read from: the one rule for staying inside a folder,
 // and where the package and KaTeX are installed (for their assets).
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, isAbsolute, join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -32,4 +32,9 @@ export function packageRoot(): string {
 export function katexDistDir(): string {
   const require = createRequire(import.meta.url);
   return dirname(require.resolve('katex/dist/katex.min.css'));
+}
+
+/** This package's version, from its package.json. */
+export function packageVersion(): string {
+  return (JSON.parse(readFileSync(join(packageRoot(), 'package.json'), 'utf8')) as { version: string }).version;
 }

@@ -52,20 +52,30 @@ export function partsHtml(parts: SheetPart[]): string {
   return parts.map((p) => `<div class="ws-part" data-part="${escapeHtml(p.key)}">${p.html}</div>`).join('');
 }
 
+/**
+ * The policy of a standalone page or record, as its own first line of
+ * defence when opened from disk: no request of any kind, no script; its own
+ * styles, fonts and images are inline.
+ */
+export const RECORD_POLICY = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; font-src data:; base-uri 'none'; form-action 'none'";
+
 export interface PageOptions {
   title: string;
   /** The sheet's header with its caution (sheetHeaderHtml). */
   headerHtml: string;
   summaryHtml: string;
   parts: SheetPart[];
-  /** <head> content: styles or links. */
+  /** <head> content: styles, the policy, data. */
   head: string;
-  /** Extra markup at the end of <body> (the live client's script tag). */
-  tail?: string;
+  /** Markup after the sheet (a record's provenance). */
+  after?: string;
+  /** The footer's words; by default when it was rendered. */
+  footer?: string;
 }
 
 export function pageHtml(o: PageOptions): string {
+  const footer = o.footer ?? `Rendered by Wakesheet ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC`;
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${escapeHtml(o.title)}</title>${o.head}</head>
-<body class="ws-page">${o.headerHtml}${o.summaryHtml}<main class="ws-sheet">${partsHtml(o.parts)}</main><footer class="ws-footer">Rendered by Wakesheet ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC</footer>${o.tail ?? ''}</body></html>`;
+<body class="ws-page">${o.headerHtml}${o.summaryHtml}<main class="ws-sheet">${partsHtml(o.parts)}</main>${o.after ?? ''}<footer class="ws-footer">${escapeHtml(footer)}</footer></body></html>`;
 }

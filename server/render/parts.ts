@@ -6,10 +6,11 @@ import type { Value } from '../core/index.js';
 import { sameItems, type InlineResult, type StatementResult } from '../evaluate/index.js';
 import type { BrokenLine, ParsedLine, Statement } from '../parse/index.js';
 import { isStatement } from '../parse/index.js';
-import type { InlineSource, SplitSheet } from '../read/parts.js';
+import type { LoadedImage } from '../read/images.js';
+import type { ImageSource, InlineSource, SplitSheet } from '../read/parts.js';
 import { inlineHtml } from './inline.js';
 import { displayKey } from './numbers.js';
-import { inlineValueSpans, proseHtml } from './prose.js';
+import { embedImages, inlineValueSpans, proseHtml } from './prose.js';
 import { errorHtml, lastGoodHtml, statementHtml, type StatementView } from './statement.js';
 
 /** One piece of the sheet's <main>: a run of prose or one input block. */
@@ -31,6 +32,8 @@ export interface PartsInput {
   /** Statement results by file line. */
   results: ReadonlyMap<number, StatementResult>;
   inline: ReadonlyMap<string, InlineResult>;
+  /** The prose's images, embedded or refused. */
+  images: ReadonlyMap<string, LoadedImage>;
   view: SheetView;
 }
 
@@ -63,7 +66,7 @@ export class PartRenderer {
     input.sheet.parts.forEach((part, i) => {
       if (part.kind === 'prose') {
         const key = `t${i}`;
-        out.push({ key, html: this.prose(key, part.raw, part.tokens, part.inline, input) });
+        out.push({ key, html: this.prose(key, part.raw, part.tokens, part.inline, input, part.images) });
         return;
       }
       const items = input.blocks[blockIndex++]!;
@@ -102,13 +105,14 @@ export class PartRenderer {
     return html;
   }
 
-  private prose(key: string, raw: string, tokens: Parameters<typeof proseHtml>[0], inline: readonly InlineSource[], input: PartsInput): string {
+  private prose(key: string, raw: string, tokens: Parameters<typeof proseHtml>[0], inline: readonly InlineSource[], input: PartsInput, images: readonly ImageSource[]): string {
     const memo = this.parts.get(key);
+    const imageInputs = images.map((i) => input.images.get(i.src));
     let base: string;
-    if (memo && memo.inputs[0] === raw) base = memo.html;
+    if (memo && memo.inputs[0] === raw && sameItems(memo.inputs.slice(1), imageInputs)) base = memo.html;
     else {
-      base = proseHtml(tokens, input.sheet.links);
-      this.parts.set(key, { html: base, inputs: [raw] });
+      base = embedImages(proseHtml(tokens, input.sheet.links), input.images);
+      this.parts.set(key, { html: base, inputs: [raw, ...imageInputs] });
     }
     if (inline.length === 0) return base;
     // The code spans in the html are the inline sources in document order; a

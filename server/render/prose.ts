@@ -4,6 +4,7 @@
 // in after sanitising, never through it.
 import { Parser, type Token, type TokensList } from 'marked';
 import sanitizeHtml from 'sanitize-html';
+import { escapeHtml } from './html.js';
 
 const OPTIONS: sanitizeHtml.IOptions = {
   allowedTags: [...sanitizeHtml.defaults.allowedTags, 'img', 'del', 'ins', 'details', 'summary', 'sup', 'sub', 'input', 'kbd', 'h1', 'h2'],
@@ -42,4 +43,21 @@ export function inlineValueSpans(html: string): Array<{ match: string; expr: str
 
 function decode(s: string): string {
   return s.replace(/&(lt|gt|amp|quot|#39|#x27);/g, (_, e: string) => ({ lt: '<', gt: '>', amp: '&', quot: '"', '#39': "'", '#x27': "'" })[e]!);
+}
+
+/**
+ * Every <img> of rendered prose with its embedded data: URI, or in its place a
+ * plain notice of why it is not shown. Runs after sanitising, so raw-HTML
+ * images written into the prose are caught as well.
+ */
+export function embedImages(html: string, images: ReadonlyMap<string, { uri: string } | { error: string }>): string {
+  if (!html.includes('<img')) return html;
+  return html.replace(/<img\b[^>]*>/g, (tag) => {
+    const src = decode(/\ssrc="([^"]*)"/.exec(tag)?.[1] ?? '');
+    const alt = /\salt="([^"]*)"/.exec(tag)?.[1] ?? '';
+    const loaded = images.get(src);
+    if (loaded && 'uri' in loaded) return tag.replace(/\ssrc="[^"]*"/, ` src="${loaded.uri}"`);
+    const why = loaded && 'error' in loaded ? loaded.error : `the image ${src} is not shown: images come from files inside the project folder`;
+    return `<span class="ws-image-refused" role="note">${alt ? `[${alt}] ` : ''}${escapeHtml(why)}</span>`;
+  });
 }

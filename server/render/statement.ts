@@ -1,6 +1,7 @@
 // One statement as HTML: inputs as name = value, results as formula =
 // substituted values = result, checks with a pass/fail mark, errors boxed.
 import type { Expr, Statement } from '../parse/ast.js';
+import { isLiteral } from '../parse/literals.js';
 import type { Value } from '../core/index.js';
 import type { StatementResult } from '../evaluate/sheet-eval.js';
 import { attrs, escapeHtml } from './html.js';
@@ -15,14 +16,6 @@ export interface StatementView {
   values: ReadonlyMap<string, Value>;
   /** Last good values of names whose statements now fail (after earlier runs of the pipeline). */
   lastGood?: ReadonlyMap<string, Value>;
-}
-
-/** Literal inputs: a number (with unit), a list of them, text, true/false. */
-export function isLiteral(e: Expr): boolean {
-  if (e.type === 'number' || e.type === 'string' || e.type === 'bool') return true;
-  if (e.type === 'unary' && e.op === '-') return isLiteral(e.arg);
-  if (e.type === 'list') return e.items.every(isLiteral);
-  return false;
 }
 
 function hasNames(e: Expr): boolean {

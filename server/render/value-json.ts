@@ -18,6 +18,10 @@ export interface ValueJson {
   items?: ValueJson[];
   /** Tables, and lists of records (a sweep: the swept inputs first), as columns and rows. */
   table?: { columns: string[]; rows: ValueJson[][] };
+  /** Rules of thumb broken, ranges left: what a script must not miss. */
+  warnings?: string[];
+  /** How it was computed, what is neglected. */
+  remarks?: string[];
 }
 
 /** Lists longer than this leave out their items in JSON (the display still tells). */
@@ -51,7 +55,10 @@ function computeJson(v: Value, sig: number): ValueJson {
     case 'record': {
       const fields: Record<string, ValueJson> = {};
       for (const [k, f] of v.fields) fields[k] = valueJson(f.value, sig);
-      return { si: null, unit: '', display, fields };
+      const json: ValueJson = { si: null, unit: '', display, fields };
+      if (v.warnings.length) json.warnings = [...v.warnings];
+      if (v.remarks.length) json.remarks = [...v.remarks];
+      return json;
     }
     default:
       return { si: null, unit: '', display };

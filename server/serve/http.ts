@@ -50,6 +50,9 @@ export function createApp(context: AppContext): express.Express {
   app.use('/sheet', (req, res, next) => {
     void serveSheet(context, req, res).catch(next);
   });
+  app.use('/record', (req, res, next) => {
+    void serveRecord(context, req, res).catch(next);
+  });
 
   const katex = katexDistDir();
   app.use('/assets/katex', (req, res, next) => {
@@ -77,35 +80,53 @@ export function createApp(context: AppContext): express.Express {
   return app;
 }
 
-async function serveSheet(context: AppContext, req: Request, res: Response): Promise<void> {
-  const notFound = () => res.status(404).type('text/plain').send('No such sheet in this folder.\n');
+/** The sheet a request's path names, once every check holds; null (after a 404) otherwise. */
+async function requestedSheet(context: AppContext, req: Request, res: Response): Promise<string | null> {
+  const notFound = () => {
+    res.status(404).type('text/plain').send('No such sheet in this folder.\n');
+    return null;
+  };
   let sheet: string;
   try {
     const raw = req.path.replace(/^\//, '');
     sheet = checkSheetPath(raw.split('/').map((s) => decodeURIComponent(s)).join('/'));
     if (raw.split('/').some((s) => decodeURIComponent(s).includes('/'))) throw new SheetPathError('encoded slash', 'bad-path');
   } catch {
-    notFound();
-    return;
+    return notFound();
   }
   const { store } = context;
-  if (!store.knows(sheet)) {
-    notFound();
-    return;
-  }
+  if (!store.knows(sheet)) return notFound();
   if (store.has(sheet)) {
     // Defence in depth: the store only lists files inside the folder, but
     // check the real path again before showing anything.
     try {
       await resolveSheetFile(context.realRoot, sheet);
     } catch (error) {
-      if (!(error instanceof SheetPathError && error.code === 'missing')) {
-        notFound();
-        return;
-      }
+      if (!(error instanceof SheetPathError && error.code === 'missing')) return notFound();
     }
   }
   await Promise.race([store.whenEvaluated(sheet), delay(FIRST_EVALUATION_WAIT_MS)]);
+  return sheet;
+}
+
+/** The set-up record of a sheet's last good evaluation, as a file to download: the one `wakesheet render` writes. */
+async function serveRecord(context: AppContext, req: Request, res: Response): Promise<void> {
+  const sheet = await requestedSheet(context, req, res);
+  if (sheet === null) return;
+  const record = context.store.record(sheet);
+  if (!record) {
+    res.status(409).type('text/plain').send('This sheet has no evaluation to record yet.\n');
+    return;
+  }
+  const name = path.posix.basename(sheet, '.md').replace(/[^\w.-]+/g, '_');
+  res.type('html').set({ 'Cache-Control': 'no-store', 'Content-Disposition': `attachment; filename="${name}-record.html"` }).send(record);
+}
+
+async function serveSheet(context: AppContext, req: Request, res: Response): Promise<void> {
+  const sheet = await requestedSheet(context, req, res);
+  if (sheet === null) return;
+  const notFound = () => res.status(404).type('text/plain').send('No such sheet in this folder.\n');
+  const { store } = context;
   const update = store.complete(sheet);
   if (!update) {
     notFound();

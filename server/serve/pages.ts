@@ -64,13 +64,18 @@ export function partHtml(key: string, hash: string, html: string): string {
   return `<div class="ws-part live-part" data-part="${escapeHtml(key)}" data-hash="${escapeHtml(hash)}">${html}</div>`;
 }
 
+/** Where a sheet's set-up record downloads from. */
+export function recordUrl(sheet: string): string {
+  return '/record/' + sheet.split('/').map(encodeURIComponent).join('/');
+}
+
 export function sheetPage(update: SheetUpdate): string {
   const { condition } = update;
   const parts = update.parts.map((p) => partHtml(p.key, p.hash, p.html ?? '')).join('\n');
   const mainClass = condition.stale ? 'ws-sheet live-main ws-stale' : 'ws-sheet live-main';
   return `${head(`${update.title} · Wakesheet`)}
 <body class="ws-page live-sheet-page" data-sheet="${escapeHtml(update.sheet)}" data-version="${update.version}">
-${bar(`<span class="live-crumb">${escapeHtml(update.sheet)}</span>`)}
+${bar(`<span class="live-crumb">${escapeHtml(update.sheet)}</span><a class="live-record" href="${escapeHtml(recordUrl(update.sheet))}" download>download the record</a>`)}
 <div class="live-notice" role="alert"${condition.notice ? '' : ' hidden'}>${condition.notice ? escapeHtml(condition.notice) : ''}</div>
 <div class="live-head">${update.headerHtml ?? ''}</div>
 <div class="live-summary">${update.summaryHtml ?? ''}</div>

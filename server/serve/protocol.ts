@@ -43,6 +43,8 @@ export interface SheetUpdate {
   sheet: string;
   /** URL of the sheet's page. */
   url: string;
+  /** URL its set-up record downloads from. */
+  recordUrl: string;
   version: number;
   /** Version this update applies to; null when it is complete. */
   base: number | null;

@@ -7,9 +7,10 @@ import { EventEmitter } from 'node:events';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { RunOptions, SheetReport } from '../pipeline/index.js';
+import { recordData, recordPage } from '../pipeline/record.js';
 import { isSheetFile } from '../read/sheet-files.js';
 import { DependencyMap } from './deps.js';
-import { footHtml, indexRowsHtml, noticeText, sheetUrl } from './pages.js';
+import { footHtml, indexRowsHtml, noticeText, recordUrl, sheetUrl } from './pages.js';
 import type { IndexEntry, PartUpdate, SheetCondition, SheetState, SheetUpdate } from './protocol.js';
 import { EvaluationQueue } from './queue.js';
 import { renamedFrom, renamedTo } from './renames.js';
@@ -44,6 +45,9 @@ interface SheetRecord {
   evaluatedAt: string | null;
   /** Text of the last evaluation, to recognise the same sheet after a rename. */
   lastText: string | null;
+  /** The text and file of the evaluation whose result is shown. */
+  resultText: string | null;
+  resultFile: string | null;
   /** The last read found the sheet empty, and a second look is due. */
   emptyOnce: boolean;
   waiters: (() => void)[];
@@ -129,6 +133,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
       type: 'sheet',
       sheet,
       url: sheetUrl(sheet),
+      recordUrl: recordUrl(sheet),
       version: record.version,
       base: null,
       title: record.title,
@@ -159,6 +164,13 @@ export class SheetStore extends EventEmitter<StoreEvents> {
       });
     }
     return entries.sort((a, b) => a.path.localeCompare(b.path));
+  }
+
+  /** The set-up record of the last good evaluation, or null before there is one. */
+  record(sheet: string): string | null {
+    const r = this.records.get(sheet);
+    if (!r?.result || r.resultText === null || r.resultFile === null) return null;
+    return recordPage(r.result, recordData(r.result, { source: r.resultText, path: r.resultFile, root: this.realRoot }));
   }
 
   /** The index as a message, rows included. */
@@ -194,6 +206,8 @@ export class SheetStore extends EventEmitter<StoreEvents> {
         movedFrom: null,
         evaluatedAt: null,
         lastText: null,
+        resultText: null,
+        resultFile: null,
         emptyOnce: false,
         waiters: [],
       };
@@ -257,6 +271,8 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     }
     if (this.closed) return;
     record.lastText = text;
+    record.resultText = text;
+    record.resultFile = file;
     this.deps.setReads(sheet, result.reads);
     this.accept(record, result);
     this.detectMoveTo(record);
@@ -325,6 +341,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
       type: 'sheet',
       sheet: record.path,
       url: sheetUrl(record.path),
+      recordUrl: recordUrl(record.path),
       version: record.version,
       base,
       title: record.title,

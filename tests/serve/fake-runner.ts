@@ -2,30 +2,12 @@
 // paragraph, `reads: FILE` lines become data-file dependencies, and a line
 // `crash!` makes evaluation fail the way a timeout or a dead child would.
 import path from 'node:path';
-import type { RunOptions, SheetResult } from '../../server/pipeline/index.js';
-import { sheetHeaderHtml } from '../../server/render/page.js';
+import { emptyReport, type RunOptions, type SheetResult } from '../../server/pipeline/index.js';
 import type { SheetRunner } from '../../server/serve/store.js';
 
 /** A result with nothing in it but what `fields` says: the shape a real run returns. */
 export function fakeResult(fields: Partial<SheetResult>): SheetResult {
-  const title = fields.title ?? '';
-  return {
-    title,
-    meta: {},
-    headerHtml: sheetHeaderHtml(title, fields.meta ?? {}, false),
-    html: '',
-    parts: [],
-    summaryHtml: '',
-    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 0 },
-    values: {},
-    checks: [],
-    errors: [],
-    reads: [],
-    elapsedMs: 0,
-    caution: false,
-    freshStatements: 0,
-    ...fields,
-  };
+  return { html: '', ...emptyReport(fields) };
 }
 
 export class ParagraphRunner implements SheetRunner {
