@@ -22,3 +22,4 @@ export { escapeHtml } from './shared/escape.js';
 export { countText, nearestWord, nounFor, numberText } from './shared/words.js';
 export { bool, describeValue, figure, list, num, record, shown, si, str, table } from './shared/values.js';
 export { fieldRecord, withDeclaredSymbols } from './shared/records.js';
+export { linePlot } from './shared/plot.js';

@@ -9,7 +9,9 @@ import { evaluateInline, type InlineCacheEntry, type InlineExpr, type InlineResu
 import { Budget, DEFAULT_LIMITS, type Limits } from './limits.js';
 import { makeScope, sheetLookup } from './make-scope.js';
 import { sameItems } from './memo.js';
-import { CONSTANTS } from './scope.js';
+import { CONSTANTS, type Scope } from './scope.js';
+import { planRerun } from './rerun.js';
+import { evaluateSweep, isSweep, type SweepEnv } from './sweep.js';
 
 export interface StatementResult {
   readonly stmt: Statement;
@@ -45,7 +47,7 @@ export interface EvalOptions {
 }
 
 interface CacheEntry {
-  inputs: Value[];
+  inputs: unknown[];
   value?: Value;
   error?: SheetError;
   warnings: string[];
@@ -135,7 +137,9 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       if (line !== undefined) r.blockedLine = line;
       return;
     }
-    const inputs = r.uses.map((n) => values.get(n) ?? CONSTANTS.get(n)!);
+    const inputs: unknown[] = r.uses.map((n) => values.get(n) ?? CONSTANTS.get(n)!);
+    // A sweep also depends on every statement it runs again: the sheet's text stands for them.
+    if (isSweep(r.stmt.expr)) inputs.push((sheetText ??= statements.map((x) => x.source).join('\n')));
     const key = memoOf(r.stmt).key;
     used.add(key);
     const hit = cache.entries.get(key);
@@ -149,7 +153,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     const entry: CacheEntry = { inputs, warnings: [], reads: [] };
     const scope = statementScope(opts, budget, values, cache, entry);
     try {
-      entry.value = evaluate(r.stmt.expr, scope);
+      entry.value = isSweep(r.stmt.expr) ? evaluateSweep(r.stmt.expr, sweepEnv(scope)) : evaluate(r.stmt.expr, scope);
     } catch (e) {
       if (!(e instanceof SheetError)) throw e;
       entry.error = e;
@@ -165,7 +169,27 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     else stopped = `the sheet stopped at the limit on line ${r.stmt.line}`;
   };
 
+  // Sweeps run the sheet again downstream of their inputs, so they come after
+  // every other definition (and what depends on a sweep after them).
+  const late = new Set<string>();
   for (const name of order) {
+    const r = defs.get(name)!;
+    if (isSweep(r.stmt.expr) || r.uses.some((n) => late.has(n))) late.add(name);
+  }
+  const sweepOrder = order.filter((n) => !late.has(n)).map((n) => defs.get(n)!.stmt as Extract<Statement, { type: 'define' }>);
+  const checkStatements = statements.filter((x): x is Extract<Statement, { type: 'check' }> => x.type === 'check');
+  let sheetText: string | undefined;
+  const sweepEnv = (scope: Scope): SweepEnv => ({
+    scope,
+    plan: (changed, wanted) => planRerun(sweepOrder, checkStatements, usesOf, changed, values, { registry: opts.registry, budget, defaults: cache.defaults, readData: opts.readData }, wanted),
+    defines: (name) => defs.has(name) && !late.has(name),
+    checkLabel: (line) => {
+      const c = checkStatements.find((x) => x.line === line);
+      return c?.label ?? c?.source.replace(/^check\s+/, '') ?? '';
+    },
+  });
+
+  for (const name of [...order.filter((n) => !late.has(n)), ...order.filter((n) => late.has(n))]) {
     const r = defs.get(name)!;
     run(r);
     const stmt = r.stmt as Extract<Statement, { type: 'define' }>;
@@ -205,7 +229,7 @@ function memoOf(s: Statement) {
   return m;
 }
 
-function usesOf(s: Statement): string[] {
+export function usesOf(s: Statement): string[] {
   return memoOf(s).names;
 }
 

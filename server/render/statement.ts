@@ -2,6 +2,7 @@
 // substituted values = result, checks with a pass/fail mark, errors boxed.
 import type { Expr, Statement } from '../parse/ast.js';
 import { isLiteral } from '../parse/literals.js';
+import { isSweep } from '../evaluate/sweep.js';
 import type { Value } from '../core/index.js';
 import type { StatementResult } from '../evaluate/sheet-eval.js';
 import { attrs, escapeHtml } from './html.js';
@@ -71,6 +72,8 @@ function symbolicContext(view: StatementView): LatexContext {
 /** Does substituting values say more than the symbols (and stay readable)? */
 function substituted(e: Expr, view: StatementView): string | null {
   if (!hasNames(e) || e.type === 'name' || e.type === 'field') return null;
+  // A sweep names the input it varies: its value in place of its name would say the opposite.
+  if (isSweep(e)) return null;
   if (e.type === 'call' && e.args.some((a) => a.value.type === 'name' && view.values.get(a.value.name)?.kind === 'record')) return null;
   return exprLatex(e, { ...symbolicContext(view), valueFor: valueOfFactory(view) });
 }

@@ -66,9 +66,13 @@ function gridHtml(name: string, columns: readonly Column[], rows: readonly (read
   return `<div class="ws-table-wrap"><table class="ws-table"${attrs({ 'data-name': name })}><thead><tr>${head}</tr></thead><tbody>${body}</tbody></table></div>`;
 }
 
-/** A table a trade function returned, as it returned it. */
+/** A table a trade function or a sweep returned, with what it says of its rows and its plots. */
 export function tableHtml(name: string, t: TableValue, sig: number): string {
-  return gridHtml(name, t.columns.map((label) => ({ label })), t.rows, sig, (i) => `${name}[${i + 1}]`, (i, c) => `${name}[${i + 1}].${t.columns[c]}`);
+  const grid = gridHtml(name, t.columns.map((label) => ({ label })), t.rows, sig, (i) => `${name}[${i + 1}]`, (i, c) => `${name}[${i + 1}].${t.columns[c]}`);
+  if (!t.warnings?.length && !t.remarks?.length && !t.figures?.length) return grid;
+  const notes = (cls: string, items: readonly string[] | undefined) => (items?.length ? `<ul class="${cls}">${items.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '');
+  const figures = (t.figures ?? []).map((f, i) => `<figure class="ws-figure"${attrs({ 'data-name': `${name}.figure${i + 1}` })}>${f.svg}${f.caption ? `<figcaption>${escapeHtml(f.caption)}</figcaption>` : ''}</figure>`).join('');
+  return `<div class="ws-record ws-sweep"${attrs({ 'data-name': name })}>${grid}${notes('ws-warnings', t.warnings)}${figures}${notes('ws-remarks', t.remarks)}</div>`;
 }
 
 /** Records in a list, in the order of the first record's fields (later fields appended). */

@@ -50,8 +50,12 @@ function computeJson(v: Value, sig: number): ValueJson {
       if (v.items.length > 0 && v.items.every((i) => i.kind === 'record')) json.table = recordListJson(v, sig);
       return json;
     }
-    case 'table':
-      return { si: null, unit: '', display, table: { columns: [...v.columns], rows: v.rows.map((row) => row.map((c) => valueJson(c, sig))) } };
+    case 'table': {
+      const json: ValueJson = { si: null, unit: '', display, table: { columns: [...v.columns], rows: v.rows.map((row) => row.map((c) => valueJson(c, sig))) } };
+      if (v.warnings?.length) json.warnings = [...v.warnings];
+      if (v.remarks?.length) json.remarks = [...v.remarks];
+      return json;
+    }
     case 'record': {
       const fields: Record<string, ValueJson> = {};
       for (const [k, f] of v.fields) fields[k] = valueJson(f.value, sig);

@@ -60,6 +60,10 @@ export interface TableValue {
   readonly kind: 'table';
   readonly columns: readonly string[];
   readonly rows: readonly (readonly Value[])[];
+  /** What a reader must not miss about the rows (a check that fails in some). */
+  readonly warnings?: readonly string[];
+  readonly remarks?: readonly string[];
+  readonly figures?: readonly FigureValue[];
 }
 
 export interface FigureValue {
@@ -99,8 +103,8 @@ export function list(items: Value[], sweep?: readonly SweepInput[]): ListValue {
   return sweep ? { kind: 'list', items, sweep } : { kind: 'list', items };
 }
 
-export function table(columns: string[], rows: Value[][]): TableValue {
-  return { kind: 'table', columns, rows };
+export function table(columns: string[], rows: Value[][], notes: { warnings?: string[]; remarks?: string[]; figures?: FigureValue[] } = {}): TableValue {
+  return { kind: 'table', columns, rows, ...notes };
 }
 
 export function figure(svg: string, caption?: string): FigureValue {
