@@ -51,7 +51,7 @@ export async function runOne(sandbox: Sandbox, file: string, root: string): Prom
 
 function failedResult(message: string): SheetResult {
   return {
-    title: '', meta: {}, html: '', headerHtml: '', caution: false, parts: [], summaryHtml: '', elapsedMs: 0, reads: [], values: {}, checks: [], freshStatements: 0,
+    title: '', meta: {}, html: '', headerHtml: '', caution: false, parts: [], summaryHtml: '', elapsedMs: 0, reads: [], values: {}, checks: [], freshStatements: 0, untypeset: 0,
     summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, errors: 1 },
     errors: [{ line: 1, column: 1, message, code: 'limit' }],
   };

@@ -14,6 +14,9 @@ export interface Limits {
 
 export const DEFAULT_LIMITS: Limits = { maxSteps: 5_000_000, maxListLength: 100_000, timeoutMs: 2000 };
 
+/** The sheet ran out of its own budget (steps, time, values held): the rest of the sheet is not evaluated. */
+export class BudgetError extends SheetError {}
+
 export class Budget {
   private steps = 0;
   private readonly deadline: number;
@@ -24,10 +27,10 @@ export class Budget {
   spend(n: number, span?: Span): void {
     this.steps += n;
     if (this.steps > this.limits.maxSteps) {
-      throw new SheetError('limit', `the sheet went past ${this.limits.maxSteps.toLocaleString('en')} evaluation steps`, span);
+      throw new BudgetError('limit', `the sheet went past ${this.limits.maxSteps.toLocaleString('en')} evaluation steps`, span);
     }
     if ((this.steps & 0x3ff) < n && Date.now() > this.deadline) {
-      throw new SheetError('limit', `evaluation stopped after ${this.limits.timeoutMs} ms`, span);
+      throw new BudgetError('limit', `evaluation stopped after ${this.limits.timeoutMs} ms`, span);
     }
   }
 

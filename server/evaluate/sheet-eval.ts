@@ -2,11 +2,12 @@
 // run's result for every statement whose text and inputs are unchanged.
 import { SheetError, type Diagnostic, diagnostic } from '../diagnostics.js';
 import type { Statement } from '../parse/ast.js';
+import { isStackOverflow } from '../parse/index.js';
 import type { CallContext, Registry, Value } from '../core/index.js';
 import { evaluate } from './interpreter.js';
 import { namesUsed, orderDefinitions, type NameUse } from './graph.js';
 import { evaluateInline, type InlineCacheEntry, type InlineExpr, type InlineResult } from './inline.js';
-import { Budget, DEFAULT_LIMITS, type Limits } from './limits.js';
+import { Budget, BudgetError, DEFAULT_LIMITS, type Limits } from './limits.js';
 import { makeScope, sheetLookup } from './make-scope.js';
 import { sameItems } from './memo.js';
 import { CONSTANTS } from './scope.js';
@@ -146,17 +147,16 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     try {
       entry.value = evaluate(r.stmt.expr, scope);
     } catch (e) {
-      if (!(e instanceof SheetError)) throw e;
-      entry.error = e;
-      r.error = diagnostic(e, r.stmt.line);
+      entry.error = statementError(e, r.stmt);
+      r.error = diagnostic(entry.error, r.stmt.line);
     }
     r.value = entry.value;
     r.warnings = entry.warnings;
     r.fresh = true;
     freshCount++;
     entry.reads.forEach((x) => reads.add(x.path));
-    // Limit errors depend on the whole run, not on this statement: never cache them.
-    if (entry.error?.code !== 'limit') cache.entries.set(key, entry);
+    // The sheet's own budget depends on the whole run, not on this statement: never cache it.
+    if (!(entry.error instanceof BudgetError)) cache.entries.set(key, entry);
     else stopped = `the sheet stopped at the limit on line ${r.stmt.line}`;
   };
 
@@ -185,6 +185,17 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   const fallback = (name: string) => (defs.has(name) || broken.has(name) ? opts.fallback?.get(name) : undefined);
   const inline = evaluateInline(opts.inline ?? [], { registry: opts.registry, limits: opts.limits ?? DEFAULT_LIMITS, values, fallback, cache: cache.inline, defaults: cache.defaults });
   return { results, values, reads: [...reads], freshCount, inline };
+}
+
+/**
+ * Whatever a statement throws is that statement's error, never the sheet's:
+ * running out of stack is a limit, anything else a fault of ours.
+ */
+export function statementError(e: unknown, stmt: Statement): SheetError {
+  if (e instanceof SheetError) return e;
+  const span = { line: stmt.line, col: 1, end: 1 + stmt.source.length };
+  if (isStackOverflow(e)) return new SheetError('limit', 'this statement is nested too deeply to evaluate; split it into named steps', span);
+  return new SheetError('internal', `internal fault while evaluating this statement: ${e instanceof Error ? e.message : String(e)}`, span);
 }
 
 // Statements are immutable and reused across runs by the pipeline's parse cache.

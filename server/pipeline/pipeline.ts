@@ -3,9 +3,9 @@
 // re-parses, re-evaluates and re-renders only what changed.
 import { basename, dirname, resolve } from 'node:path';
 import { createRegistry, type Registry, type Value } from '../core/index.js';
-import { diagnostic, SheetError } from '../diagnostics.js';
+import { diagnostic } from '../diagnostics.js';
 import { DEFAULT_LIMITS, EvalCache, evaluateSheet, type InlineExpr, type Limits, type StatementResult } from '../evaluate/index.js';
-import { isStatement, parseExpression, parseLine, type BrokenLine, type ParsedLine, type Statement } from '../parse/index.js';
+import { asSheetError, isStatement, parseExpression, parseLine, type BrokenLine, type ParsedLine, type Statement } from '../parse/index.js';
 import { dataReader, projectPath } from '../read/data-files.js';
 import { splitFrontMatter } from '../read/front-matter.js';
 import { normaliseNewlines, resplitParts, splitParts, type SourcePart, type SplitSheet } from '../read/parts.js';
@@ -39,6 +39,9 @@ export class SheetPipeline {
 
   run(text: string, opts: RunOptions = {}): SheetReport {
     const t0 = performance.now();
+    // One time budget for the whole run: evaluation stops itself at it, and
+    // typesetting shows what it has not reached by then as source text.
+    const deadline = Date.now() + this.limits.timeoutMs;
     const path = opts.path ? resolve(opts.path) : undefined;
     const sheetDir = path ? dirname(path) : resolve(opts.root ?? '.');
     const root = resolve(opts.root ?? sheetDir);
@@ -67,7 +70,15 @@ export class SheetPipeline {
     // render
     const sig = sigfigs(meta.sigfigs);
     const results = new Map(evaluation.results.map((r) => [r.stmt.line, r]));
-    const parts = this.renderer.render({ sheet, blocks, results, inline: evaluation.inline, view: { sig, values: evaluation.values, lastGood: this.lastGood } });
+    const { parts, untypeset } = this.renderer.render({
+      sheet,
+      blocks,
+      results,
+      inline: evaluation.inline,
+      view: { sig, values: evaluation.values, lastGood: this.lastGood },
+      deadline,
+      budgetMs: this.limits.timeoutMs,
+    });
 
     return buildReport({
       title: meta.title ?? firstHeading(body) ?? (path ? basename(path, '.md') : 'Worksheet'),
@@ -77,6 +88,7 @@ export class SheetPipeline {
       evaluation,
       inline,
       parts,
+      untypeset,
       sig,
       reads: evaluation.reads.map((p) => projectPath(root, sheetDir, p)),
       elapsedMs: performance.now() - t0,
@@ -114,8 +126,7 @@ export class SheetPipeline {
           try {
             item = { key, line: s.line, text: s.text, expr: parseExpression(s.text, s.line) };
           } catch (e) {
-            if (!(e instanceof SheetError)) throw e;
-            item = { key, line: s.line, text: s.text, error: diagnostic(e, s.line) };
+            item = { key, line: s.line, text: s.text, error: diagnostic(asSheetError(e, { line: s.line, col: 1, end: 1 }), s.line) };
           }
         }
         seen.set(key, item);

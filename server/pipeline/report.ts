@@ -18,6 +18,8 @@ export interface ReportInput {
   evaluation: SheetEvaluation;
   inline: readonly InlineExpr[];
   parts: SheetPart[];
+  /** Statements and prose parts the time budget left untypeset. */
+  untypeset: number;
   sig: number;
   /** Data files read, relative to the project root. */
   reads: string[];
@@ -69,7 +71,7 @@ export function buildReport(input: ReportInput): SheetReport {
     meta: input.meta,
     headerHtml: sheetHeaderHtml(input.title, input.meta, caution),
     parts: input.parts,
-    summaryHtml: summaryHtml(summary, problems),
+    summaryHtml: summaryHtml(summary, problems, input.untypeset ? [untypesetNote(input.untypeset)] : []),
     summary,
     values,
     checks,
@@ -78,7 +80,13 @@ export function buildReport(input: ReportInput): SheetReport {
     elapsedMs: input.elapsedMs,
     caution,
     freshStatements: evaluation.freshCount,
+    untypeset: input.untypeset,
   };
+}
+
+function untypesetNote(n: number): string {
+  const what = n === 1 ? 'One statement or paragraph was' : `${n.toLocaleString('en')} statements and paragraphs were`;
+  return `${what} not typeset within the sheet's time limit and ${n === 1 ? 'is' : 'are'} shown as source text; the values are all current.`;
 }
 
 function needsCaution(v: Value): boolean {

@@ -17,13 +17,13 @@ export interface SummaryItem {
   kind: 'error' | 'fail';
 }
 
-export function summaryHtml(s: SheetSummary, items: SummaryItem[]): string {
+export function summaryHtml(s: SheetSummary, items: SummaryItem[], notes: readonly string[] = []): string {
   const state = s.errors > 0 ? 'has-errors' : s.checksFailed > 0 ? 'has-failures' : 'all-clear';
   const cell = (n: number, label: string, cls: string) => `<div class="ws-count ${cls}" data-count="${cls}"><span class="ws-n">${n}</span> ${label}</div>`;
   const list = items.length
     ? `<ol class="ws-problems">${items.map((i) => `<li class="ws-${i.kind}"><a href="#L${i.line}">line ${i.line}</a> ${escapeHtml(i.text)}</li>`).join('')}</ol>`
     : '';
-  return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'inputs', 'inputs')}${cell(s.results, 'results', 'results')}${cell(s.checksPassed, 'checks passed', 'passed')}${cell(s.checksFailed, 'checks failed', 'failed')}${cell(s.errors, 'errors', 'errors')}${list}</section>`;
+  return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'inputs', 'inputs')}${cell(s.results, 'results', 'results')}${cell(s.checksPassed, 'checks passed', 'passed')}${cell(s.checksFailed, 'checks failed', 'failed')}${cell(s.errors, 'errors', 'errors')}${list}${notes.map((n) => `<p class="ws-summary-note">${escapeHtml(n)}</p>`).join('')}</section>`;
 }
 
 export function headerHtml(title: string, meta: Record<string, string>): string {

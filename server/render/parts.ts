@@ -5,11 +5,12 @@
 import type { Value } from '../core/index.js';
 import { sameItems, type InlineResult, type StatementResult } from '../evaluate/index.js';
 import type { BrokenLine, ParsedLine, Statement } from '../parse/index.js';
-import { isStatement } from '../parse/index.js';
-import type { InlineSource, SplitSheet } from '../read/parts.js';
+import { isStackOverflow, isStatement } from '../parse/index.js';
+import { PLAIN_PROSE, type InlineSource, type SplitSheet } from '../read/parts.js';
 import { inlineHtml } from './inline.js';
 import { inlineValueSpans, proseHtml } from './prose.js';
-import { errorHtml, lastGoodHtml, statementHtml, type StatementView } from './statement.js';
+import { escapeHtml } from './html.js';
+import { errorHtml, lastGoodHtml, statementHtml, untypesetHtml, type StatementView } from './statement.js';
 
 /** One piece of the sheet's <main>: a run of prose or one input block. */
 export interface SheetPart {
@@ -31,6 +32,19 @@ export interface PartsInput {
   results: ReadonlyMap<number, StatementResult>;
   inline: ReadonlyMap<string, InlineResult>;
   view: SheetView;
+  /**
+   * The sheet's time budget ends here (Date.now() ms): statements and prose not
+   * typeset by then are shown as their source text, and typeset on a later run.
+   */
+  deadline?: number;
+  /** The budget in ms, for the words of the notice. */
+  budgetMs?: number;
+}
+
+export interface RenderedParts {
+  parts: SheetPart[];
+  /** Statements and prose parts shown as source text because the time ran out. */
+  untypeset: number;
 }
 
 interface Memo {
@@ -47,14 +61,18 @@ export class PartRenderer {
   /** Rendered statements of the last runs, by line and text. */
   private statements = new Map<string, Memo>();
 
-  render(input: PartsInput): SheetPart[] {
+  /** Pieces shown untypeset in the current run. */
+  private cut = 0;
+
+  render(input: PartsInput): RenderedParts {
+    this.cut = 0;
     const out: SheetPart[] = [];
     let blockIndex = 0;
     let statementCount = 0;
     input.sheet.parts.forEach((part, i) => {
       if (part.kind === 'prose') {
         const key = `t${i}`;
-        out.push({ key, html: this.prose(key, part.raw, part.tokens, part.inline, input) });
+        out.push({ key, html: part.plain ? plainHtml(part.raw, part.plain) : this.prose(key, part.raw, part.tokens, part.inline, input) });
         return;
       }
       const items = input.blocks[blockIndex++]!;
@@ -64,7 +82,16 @@ export class PartRenderer {
     });
     // Forget statements that left the sheet, now and then rather than every run.
     if (this.statements.size > 2 * statementCount + 100) this.forgetStatements(input);
-    return out;
+    return { parts: out, untypeset: this.cut };
+  }
+
+  private outOfTime(input: PartsInput): boolean {
+    return input.deadline !== undefined && Date.now() > input.deadline;
+  }
+
+  private timeReason(input: PartsInput): string {
+    const budget = input.budgetMs === undefined ? 'its time limit' : `its ${input.budgetMs.toLocaleString('en')} ms time limit`;
+    return `the sheet reached ${budget} first; shown as its source text until a later run typesets it`;
   }
 
   private block(key: string, fenceLine: number, items: readonly ParsedLine[], input: PartsInput): string {
@@ -76,19 +103,36 @@ export class PartRenderer {
     }
     const memo = this.parts.get(key);
     if (memo && sameItems(memo.inputs, inputs)) return memo.html;
-    const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, view) : brokenHtml(item, view)));
+    const cutBefore = this.cut;
+    const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, input) : brokenHtml(item, view)));
     const html = `<div class="ws-block" data-fence-line="${fenceLine}">${pieces.join('')}</div>`;
-    this.parts.set(key, { html, inputs });
+    // A block with statements cut short is not kept: the next run finishes it.
+    if (this.cut === cutBefore) this.parts.set(key, { html, inputs });
+    else this.parts.delete(key);
     return html;
   }
 
   /** One statement's HTML, reused while its result and inputs are the same objects. */
-  private statement(r: StatementResult, view: SheetView): string {
+  private statement(r: StatementResult, input: PartsInput): string {
+    const { view } = input;
     const key = statementKey(r.stmt);
     const inputs = statementInputs(r, view, []);
     const memo = this.statements.get(key);
     if (memo && sameItems(memo.inputs, inputs)) return memo.html;
-    const html = `<a id="L${r.stmt.line}" class="ws-anchor"></a>${statementHtml(r, view)}`;
+    const anchor = `<a id="L${r.stmt.line}" class="ws-anchor"></a>`;
+    if (this.outOfTime(input)) {
+      this.cut++;
+      return anchor + untypesetHtml(r, view, this.timeReason(input));
+    }
+    let body: string;
+    try {
+      body = statementHtml(r, view);
+    } catch (e) {
+      // One formula the typesetter cannot take is that statement's problem only.
+      const reason = isStackOverflow(e) ? 'its formula nests too deeply for the typesetter' : `a fault inside Wakesheet while typesetting it (please report it): ${e instanceof Error ? e.message : String(e)}`;
+      body = untypesetHtml(r, view, reason);
+    }
+    const html = anchor + body;
     this.statements.set(key, { html, inputs });
     return html;
   }
@@ -97,8 +141,16 @@ export class PartRenderer {
     const memo = this.parts.get(key);
     let base: string;
     if (memo && memo.inputs[0] === raw) base = memo.html;
-    else {
-      base = proseHtml(tokens, input.sheet.links);
+    else if (this.outOfTime(input)) {
+      this.cut++;
+      return plainHtml(raw, `Not laid out yet: ${this.timeReason(input)}.`);
+    } else {
+      try {
+        base = proseHtml(tokens, input.sheet.links);
+      } catch (e) {
+        if (!isStackOverflow(e)) throw e;
+        base = plainHtml(raw, PLAIN_PROSE);
+      }
       this.parts.set(key, { html: base, inputs: [raw] });
     }
     if (inline.length === 0) return base;
@@ -129,6 +181,11 @@ export class PartRenderer {
 
 function statementKey(s: Statement): string {
   return `${s.line}\u0000${s.source}`;
+}
+
+/** Prose that is not laid out as Markdown: its text as it stands, and why. */
+function plainHtml(raw: string, reason: string): string {
+  return `<div class="ws-plain"><p class="ws-untypeset-note">${escapeHtml(reason)}</p><pre class="ws-plain-text">${escapeHtml(raw)}</pre></div>`;
 }
 
 function brokenHtml(item: BrokenLine, view: SheetView): string {

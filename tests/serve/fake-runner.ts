@@ -24,6 +24,7 @@ export function fakeResult(fields: Partial<SheetResult>): SheetResult {
     elapsedMs: 0,
     caution: false,
     freshStatements: 0,
+    untypeset: 0,
     ...fields,
   };
 }
