@@ -4,9 +4,19 @@ import { mkdir, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { benchLive, printLive } from './live.js';
+import { benchMemory, printMemory } from './memory.js';
 
 const out = path.join(path.dirname(fileURLToPath(import.meta.url)), 'out');
-const live = await benchLive();
-printLive(live);
+// WAKESHEET_BENCH_PARTS=memory (or live, or a comma list) runs some of them.
+const parts = (process.env.WAKESHEET_BENCH_PARTS ?? 'live,memory').split(',');
 await mkdir(out, { recursive: true });
-await writeFile(path.join(out, 'live.json'), JSON.stringify({ at: new Date().toISOString(), live }, null, 2));
+if (parts.includes('memory')) {
+  const memory = benchMemory();
+  printMemory(memory);
+  await writeFile(path.join(out, 'memory.json'), JSON.stringify({ at: new Date().toISOString(), memory }, null, 2));
+}
+if (parts.includes('live')) {
+  const live = await benchLive();
+  printLive(live);
+  await writeFile(path.join(out, 'live.json'), JSON.stringify({ at: new Date().toISOString(), live }, null, 2));
+}

@@ -136,6 +136,15 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     used.add(key);
     const hit = cache.entries.get(key);
     if (hit && sameItems(hit.inputs, inputs) && readsUnchanged(hit.reads, opts.readData)) {
+      if (hit.value) {
+        try {
+          budget.hold(heldItems(hit.value), r.stmt.expr.span);
+        } catch (e) {
+          r.error = diagnostic(e as SheetError, r.stmt.line);
+          stopped = `the sheet stopped at the limit on line ${r.stmt.line}`;
+          return;
+        }
+      }
       r.value = hit.value;
       if (hit.error) r.error = diagnostic(hit.error, r.stmt.line);
       r.warnings = hit.warnings;
@@ -146,7 +155,9 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     const scope = statementScope(opts, budget, values, cache, entry);
     try {
       entry.value = evaluate(r.stmt.expr, scope);
+      budget.hold(heldItems(entry.value), r.stmt.expr.span);
     } catch (e) {
+      entry.value = undefined;
       entry.error = statementError(e, r.stmt);
       r.error = diagnostic(entry.error, r.stmt.line);
     }
@@ -185,6 +196,19 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   const fallback = (name: string) => (defs.has(name) || broken.has(name) ? opts.fallback?.get(name) : undefined);
   const inline = evaluateInline(opts.inline ?? [], { registry: opts.registry, limits: opts.limits ?? DEFAULT_LIMITS, values, fallback, cache: cache.inline, defaults: cache.defaults });
   return { results, values, reads: [...reads], freshCount, inline };
+}
+
+/** List items a value holds, nested lists and record fields included. */
+function heldItems(v: Value): number {
+  if (v.kind === 'record') {
+    let n = 0;
+    for (const f of v.fields.values()) n += heldItems(f.value);
+    return n;
+  }
+  if (v.kind !== 'list') return 0;
+  let n = v.items.length;
+  for (const item of v.items) if (item.kind === 'list' || item.kind === 'record') n += heldItems(item);
+  return n;
 }
 
 /**

@@ -9,7 +9,7 @@ import { isStackOverflow, isStatement } from '../parse/index.js';
 import { PLAIN_PROSE, type InlineSource, type SplitSheet } from '../read/parts.js';
 import { inlineHtml } from './inline.js';
 import { inlineValueSpans, proseHtml } from './prose.js';
-import { escapeHtml } from './html.js';
+import { compactHtml, escapeHtml } from './html.js';
 import { errorHtml, lastGoodHtml, statementHtml, untypesetHtml, type StatementView } from './statement.js';
 
 /** One piece of the sheet's <main>: a run of prose or one input block. */
@@ -72,7 +72,7 @@ export class PartRenderer {
     input.sheet.parts.forEach((part, i) => {
       if (part.kind === 'prose') {
         const key = `t${i}`;
-        out.push({ key, html: part.plain ? plainHtml(part.raw, part.plain) : this.prose(key, part.raw, part.tokens, part.inline, input) });
+        out.push({ key, html: part.plain ? compactHtml(plainHtml(part.raw, part.plain)) : this.prose(key, part.raw, part.tokens, part.inline, input) });
         return;
       }
       const items = input.blocks[blockIndex++]!;
@@ -104,12 +104,31 @@ export class PartRenderer {
     const memo = this.parts.get(key);
     if (memo && sameItems(memo.inputs, inputs)) return memo.html;
     const cutBefore = this.cut;
-    const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, input) : brokenHtml(item, view)));
-    const html = `<div class="ws-block" data-fence-line="${fenceLine}">${pieces.join('')}</div>`;
+    const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, input) : compactHtml(brokenHtml(item, view))));
+    const open = `<div class="ws-block" data-fence-line="${fenceLine}">`;
+    const html = `${open}${pieces.join('')}</div>`;
+    this.shareStatements(items, pieces, html, open.length);
     // A block with statements cut short is not kept: the next run finishes it.
     if (this.cut === cutBefore) this.parts.set(key, { html, inputs });
     else this.parts.delete(key);
     return html;
+  }
+
+  /**
+   * The html of a block is held once: each statement's memo becomes a slice
+   * of the block's string (V8 shares the characters), instead of a copy of
+   * its own beside the block's.
+   */
+  private shareStatements(items: readonly ParsedLine[], pieces: readonly string[], html: string, start: number): void {
+    let at = start;
+    items.forEach((item, i) => {
+      const length = pieces[i]!.length;
+      if (isStatement(item)) {
+        const memo = this.statements.get(statementKey(item));
+        if (memo && memo.html.length === length) memo.html = html.slice(at, at + length);
+      }
+      at += length;
+    });
   }
 
   /** One statement's HTML, reused while its result and inputs are the same objects. */
@@ -122,7 +141,7 @@ export class PartRenderer {
     const anchor = `<a id="L${r.stmt.line}" class="ws-anchor"></a>`;
     if (this.outOfTime(input)) {
       this.cut++;
-      return anchor + untypesetHtml(r, view, this.timeReason(input));
+      return compactHtml(anchor + untypesetHtml(r, view, this.timeReason(input)));
     }
     let body: string;
     try {
@@ -132,7 +151,7 @@ export class PartRenderer {
       const reason = isStackOverflow(e) ? 'its formula nests too deeply for the typesetter' : `a fault inside Wakesheet while typesetting it (please report it): ${e instanceof Error ? e.message : String(e)}`;
       body = untypesetHtml(r, view, reason);
     }
-    const html = anchor + body;
+    const html = compactHtml(anchor + body);
     this.statements.set(key, { html, inputs });
     return html;
   }
@@ -143,13 +162,13 @@ export class PartRenderer {
     if (memo && memo.inputs[0] === raw) base = memo.html;
     else if (this.outOfTime(input)) {
       this.cut++;
-      return plainHtml(raw, `Not laid out yet: ${this.timeReason(input)}.`);
+      return compactHtml(plainHtml(raw, `Not laid out yet: ${this.timeReason(input)}.`));
     } else {
       try {
-        base = proseHtml(tokens, input.sheet.links);
+        base = compactHtml(proseHtml(tokens, input.sheet.links));
       } catch (e) {
         if (!isStackOverflow(e)) throw e;
-        base = plainHtml(raw, PLAIN_PROSE);
+        base = compactHtml(plainHtml(raw, PLAIN_PROSE));
       }
       this.parts.set(key, { html: base, inputs: [raw] });
     }
@@ -169,7 +188,7 @@ export class PartRenderer {
       const result = input.inline.get(inlineKey(source.line, source.text));
       if (result) html = html.replace(span.match, () => inlineHtml(source.text, result, input.view.sig));
     }
-    return html;
+    return compactHtml(html);
   }
 
   private forgetStatements(input: PartsInput): void {
