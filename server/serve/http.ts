@@ -89,20 +89,19 @@ async function serveSheet(context: AppContext, req: Request, res: Response): Pro
     return;
   }
   const { store } = context;
-  if (!store.knows(sheet)) {
+  // A deleted sheet stays with the pages that show it (they were told), not at its URL.
+  if (!store.has(sheet)) {
     notFound();
     return;
   }
-  if (store.has(sheet)) {
-    // Defence in depth: the store only lists files inside the folder, but
-    // check the real path again before showing anything.
-    try {
-      await resolveSheetFile(context.realRoot, sheet);
-    } catch (error) {
-      if (!(error instanceof SheetPathError && error.code === 'missing')) {
-        notFound();
-        return;
-      }
+  // Defence in depth: the store only lists files inside the folder, but
+  // check the real path again before showing anything.
+  try {
+    await resolveSheetFile(context.realRoot, sheet);
+  } catch (error) {
+    if (!(error instanceof SheetPathError && error.code === 'missing')) {
+      notFound();
+      return;
     }
   }
   await Promise.race([store.whenEvaluated(sheet), delay(FIRST_EVALUATION_WAIT_MS)]);
