@@ -1,6 +1,7 @@
 // `wakesheet render SHEET.md -o OUT.html [--root DIR]`: the standalone record.
 import { writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
+import { typesetProgress } from '../pipeline/index.js';
 import { failing, parseArgs, runOne, Sandbox, UsageError } from './shared.js';
 
 export async function renderCommand(argv: string[]): Promise<number> {
@@ -11,7 +12,12 @@ export async function renderCommand(argv: string[]): Promise<number> {
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
   const sandbox = new Sandbox();
   try {
-    const r = await runOne(sandbox, file, root);
+    let r = await runOne(sandbox, file, root);
+    // The record must be typeset whole: a run that ran out of time goes on where it stopped.
+    for (let before = Infinity; r.untypeset > 0 && typesetProgress(before, r.untypeset); ) {
+      before = r.untypeset;
+      r = await runOne(sandbox, file, root);
+    }
     if (!r.html) {
       process.stderr.write(`${file}: ${r.errors[0]?.message}\n`);
       return 1;

@@ -1,8 +1,9 @@
 // What the commands share: the usage error, flag parsing, colour, and
 // running one sheet in the sandbox with a sandbox failure as an error line.
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync, readFileSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { SheetResult } from '../pipeline/index.js';
+import { sheetTooLarge } from '../read/sheet-files.js';
 import { Sandbox, SandboxError } from '../sandbox/sandbox.js';
 
 export class UsageError extends Error {}
@@ -41,6 +42,9 @@ function readSheet(file: string): string {
 
 /** Runs one sheet; a sandbox failure (timeout, memory, crash) comes back as the sheet's one error. */
 export async function runOne(sandbox: Sandbox, file: string, root: string): Promise<SheetResult> {
+  if (!existsSync(file)) throw new UsageError(`no such file: ${file}`);
+  const tooLarge = sheetTooLarge(statSync(file).size);
+  if (tooLarge) return failedResult(tooLarge);
   try {
     return await sandbox.run(readSheet(file), { path: resolve(file), root });
   } catch (e) {

@@ -146,7 +146,8 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
         }
       }
       r.value = hit.value;
-      if (hit.error) r.error = diagnostic(hit.error, r.stmt.line);
+      // The statement may have moved since its error was found: a statement is one line, so the error is on its line now.
+      if (hit.error) r.error = { ...diagnostic(hit.error, r.stmt.line), line: r.stmt.line };
       r.warnings = hit.warnings;
       hit.reads.forEach((x) => reads.add(x.path));
       return;

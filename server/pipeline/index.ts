@@ -2,3 +2,4 @@
 export { SheetPipeline, type PipelineOptions } from './pipeline.js';
 export { renderSheet, standalonePage, withPage } from './library.js';
 export type * from './types.js';
+export { typesetProgress } from './report.js';

@@ -84,6 +84,15 @@ export function buildReport(input: ReportInput): SheetReport {
   };
 }
 
+/**
+ * A run that left `after` of `before` statements untypeset did enough to be
+ * worth another run of the same text (which goes on where it stopped). A
+ * sheet too large to typeset in any run stops after one.
+ */
+export function typesetProgress(before: number, after: number): boolean {
+  return after <= 0.9 * before;
+}
+
 function untypesetNote(n: number): string {
   const what = n === 1 ? 'One statement or paragraph was' : `${n.toLocaleString('en')} statements and paragraphs were`;
   return `${what} not typeset within the sheet's time limit and ${n === 1 ? 'is' : 'are'} shown as source text; the values are all current.`;

@@ -103,6 +103,13 @@ export class PartRenderer {
     }
     const memo = this.parts.get(key);
     if (memo && sameItems(memo.inputs, inputs)) return memo.html;
+    if (this.outOfTime(input)) {
+      // Out of time before the block began: its lines as they stand, in one piece (cheap for a huge sheet).
+      const count = items.length;
+      this.cut += count;
+      const source = items.map((item) => (isStatement(item) ? item.source : item.source)).join('\n');
+      return compactHtml(`<div class="ws-block ws-untypeset" data-fence-line="${fenceLine}"><p class="ws-untypeset-note">${count === 1 ? 'This statement is' : `These ${count.toLocaleString('en')} statements are`} not typeset: ${escapeHtml(this.timeReason(input))}.</p><pre class="ws-plain-text">${escapeHtml(source)}</pre></div>`);
+    }
     const cutBefore = this.cut;
     const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, input) : compactHtml(brokenHtml(item, view))));
     const open = `<div class="ws-block" data-fence-line="${fenceLine}">`;

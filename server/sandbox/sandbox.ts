@@ -43,7 +43,8 @@ interface Pending {
  * cannot interrupt (one long formula, a huge Markdown file) and for faults.
  */
 export function backstopMs(timeoutMs: number): number {
-  return 2 * timeoutMs + 3000;
+  // Reading, parsing and reporting an 8 MiB sheet take seconds of their own.
+  return Math.max(3 * timeoutMs, timeoutMs + 8000);
 }
 
 const childPath = fileURLToPath(new URL(import.meta.url.endsWith('.ts') ? './child.ts' : './child.js', import.meta.url));

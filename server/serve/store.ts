@@ -6,7 +6,7 @@
 import { EventEmitter } from 'node:events';
 import { readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
-import type { RunOptions, SheetReport } from '../pipeline/index.js';
+import { typesetProgress, type RunOptions, type SheetReport } from '../pipeline/index.js';
 import { isSheetFile, sheetTooLarge } from '../read/sheet-files.js';
 import { DependencyMap } from './deps.js';
 import { footHtml, indexRowsHtml, noticeText, sheetUrl } from './pages.js';
@@ -300,13 +300,14 @@ export class SheetStore extends EventEmitter<StoreEvents> {
   /**
    * A run that ran out of time while typesetting showed the rest as source
    * text; the next run of the same text reuses what was typeset and goes on.
-   * Run again while that makes progress, behind whatever else is waiting.
+   * Run again while each run typesets a good share of what is left (a sheet
+   * too large to typeset in any run stops after one), behind whatever else waits.
    */
   private continueTypesetting(record: SheetRecord, text: string, untypeset: number): void {
     const before = record.untypeset;
     record.untypeset = untypeset > 0 ? { count: untypeset, text } : null;
     if (untypeset === 0) return;
-    if (before && before.text === text && before.count <= untypeset) return; // no progress: leave it
+    if (before && before.text === text && !typesetProgress(before.count, untypeset)) return;
     this.schedule(record.path);
   }
 

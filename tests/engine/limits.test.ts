@@ -4,9 +4,10 @@ import katex from 'katex';
 import { describe, expect, it } from 'vitest';
 import { namesUsed } from '../../server/evaluate/graph.js';
 import type { Expr } from '../../server/parse/ast.js';
-import { MAX_LINE_CHARS, MAX_NESTING, parseExpression } from '../../server/parse/index.js';
+import { MAX_LINE_CHARS, MAX_NESTING, parseExpression, parseStatement } from '../../server/parse/index.js';
 import { SheetPipeline } from '../../server/pipeline/index.js';
 import { exprLatex } from '../../server/render/latex.js';
+import { untypesetHtml } from '../../server/render/statement.js';
 import { textLatex } from '../../server/render/symbols.js';
 import { sheet, si } from './helpers.js';
 
@@ -140,11 +141,22 @@ describe('typesetting', () => {
     expect(first.untypeset).toBe(3);
     const html = first.parts.map((p) => p.html).join('');
     expect(html).not.toContain('class="katex"');
-    expect(html).toContain('<code class="ws-source">Re = U * 2 m / 1.5e-5 m^2/s</code>');
-    expect(html).toContain('data-name="Re" data-si="1600000"');
-    expect(html).toContain('not typeset: the sheet reached its -1 ms time limit first');
+    // Out of time before the block began: the block's lines as they stand, and why.
+    expect(html).toContain('<pre class="ws-plain-text">U = 12 m/s\nRe = U * 2 m / 1.5e-5 m^2/s\ncheck Re &gt; 1000 &quot;turbulent&quot;</pre>');
+    expect(html).toContain('These 3 statements are not typeset: the sheet reached its -1 ms time limit first');
     expect(first.summaryHtml).toContain('shown as source text');
     expect(first.values.Re!.si).toBeCloseTo(1.6e6, 6);
+
+    // Cut in the middle of a block, a statement is its source text with its value in words and the same data attributes.
+    const one = untypesetHtml(
+      { stmt: parseStatement('Re = U * 2 m / 1.5e-5 m^2/s', 7)!, value: { kind: 'quantity', si: 1.6e6, dims: [0, 0, 0, 0, 0, 0, 0] }, warnings: [], uses: ['U'], fresh: true },
+      { sig: 4, values: new Map() },
+      'the sheet reached its 2,000 ms time limit first',
+    );
+    expect(one).toContain('<code class="ws-source">Re = U * 2 m / 1.5e-5 m^2/s</code>');
+    expect(one).toContain('data-name="Re" data-si="1600000"');
+    expect(one).toContain('= 1.6×10⁶');
+    expect(one).toContain('not typeset: the sheet reached its 2,000 ms time limit first');
 
     const full = new SheetPipeline().run(text);
     expect(full.untypeset).toBe(0);
