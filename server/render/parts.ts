@@ -107,7 +107,7 @@ export class PartRenderer {
       // Out of time before the block began: its lines as they stand, in one piece (cheap for a huge sheet).
       const count = items.length;
       this.cut += count;
-      const source = items.map((item) => (isStatement(item) ? item.source : item.source)).join('\n');
+      const source = items.map((item) => item.source).join('\n');
       return compactHtml(`<div class="ws-block ws-untypeset" data-fence-line="${fenceLine}"><p class="ws-untypeset-note">${count === 1 ? 'This statement is' : `These ${count.toLocaleString('en')} statements are`} not typeset: ${escapeHtml(this.timeReason(input))}.</p><pre class="ws-plain-text">${escapeHtml(source)}</pre></div>`);
     }
     const cutBefore = this.cut;
@@ -132,7 +132,8 @@ export class PartRenderer {
       const length = pieces[i]!.length;
       if (isStatement(item)) {
         const memo = this.statements.get(statementKey(item));
-        if (memo && memo.html.length === length) memo.html = html.slice(at, at + length);
+        // Only a memo that holds this very html (a statement cut short by the time is not memoised).
+        if (memo && memo.html === pieces[i]) memo.html = html.slice(at, at + length);
       }
       at += length;
     });
