@@ -47,8 +47,9 @@ export interface LiveFigures {
 
 export async function benchLive(): Promise<LiveFigures[]> {
   // WAKESHEET_BENCH_ONLY=demo or =large runs one of the two.
-  const only = process.env.WAKESHEET_BENCH_ONLY;
-  const sheets = [demoSheet(ROOT), generatedSheet()].filter((_, i) => !only || only === (i === 0 ? 'demo' : 'large'));
+  const only = process.env.WAKESHEET_BENCH_ONLY?.split(',') ?? [];
+  const picked = only.filter((o) => o === 'demo' || o === 'large');
+  const sheets = [demoSheet(ROOT), generatedSheet()].filter((_, i) => picked.length === 0 || picked.includes(i === 0 ? 'demo' : 'large'));
   const results: LiveFigures[] = [];
   for (const sheet of sheets) {
     const { full, oneInput, formulas } = await evaluationCost(sheet);

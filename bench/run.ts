@@ -6,13 +6,26 @@ import { fileURLToPath } from 'node:url';
 import { benchConvergence, printConvergence } from './convergence.js';
 import { benchDomain, printDomain } from './domain.js';
 import { benchLive, printLive } from './live.js';
+import { benchMemory, printMemory } from './memory.js';
+import { benchFairness, printFairness } from './fairness.js';
 
 const out = path.join(path.dirname(fileURLToPath(import.meta.url)), 'out');
-// WAKESHEET_BENCH_ONLY=live, =domain or =convergence runs one of them (live also takes =demo and =large).
-const only = process.env.WAKESHEET_BENCH_ONLY;
-const runs = (name: string, ...aliases: string[]) => !only || only === name || aliases.includes(only);
+// WAKESHEET_BENCH_ONLY picks some of them, as a comma list: live (or demo, or
+// large, its two sheets), domain, convergence, memory, fairness.
+const only = process.env.WAKESHEET_BENCH_ONLY?.split(',');
+const runs = (name: string, ...aliases: string[]) => !only || only.includes(name) || aliases.some((a) => only.includes(a));
 await mkdir(out, { recursive: true });
 const save = (name: string, figures: unknown) => writeFile(path.join(out, `${name}.json`), JSON.stringify({ at: new Date().toISOString(), [name]: figures }, null, 2));
+if (runs('memory')) {
+  const memory = benchMemory();
+  printMemory(memory);
+  await save('memory', memory);
+}
+if (runs('fairness')) {
+  const fairness = await benchFairness();
+  printFairness(fairness);
+  await save('fairness', fairness);
+}
 if (runs('live', 'demo', 'large')) {
   const live = await benchLive();
   printLive(live);

@@ -19,6 +19,7 @@ const link = openLink({
     if (!isSheet) status.live(new Date().toISOString());
   },
   onDown: (retryInMs) => status.offline(retryInMs),
+  onGone: () => status.gone(),
 });
 const send = (/** @type {import('../server/serve/protocol.js').ClientMessage} */ message) => link.send(message);
 const view = isSheet ? createSheetView(status, send) : createIndexView(send);

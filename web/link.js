@@ -1,15 +1,19 @@
 // One WebSocket to the server that comes back by itself: after a drop it
 // retries with a growing delay (with jitter, so many tabs do not reconnect in
-// step) and calls onOpen again, where the page asks for a fresh copy.
+// step) and calls onOpen again, where the page asks for a fresh copy. A close
+// with NO_SUCH_SHEET (the sheet was deleted and let go) ends it for good.
 
 const FIRST_DELAY_MS = 200;
 const MAX_DELAY_MS = 5000;
+/** The server's close code for a sheet that no longer exists (serve/live.ts). */
+const NO_SUCH_SHEET = 4404;
 
 /**
  * @param {{
  *   onOpen: () => void,
  *   onMessage: (message: any) => void,
  *   onDown: (retryInMs: number) => void,
+ *   onGone: () => void,
  * }} handlers
  */
 export function openLink(handlers) {
@@ -34,8 +38,13 @@ export function openLink(handlers) {
       }
       handlers.onMessage(message);
     });
-    ws.addEventListener('close', () => {
+    ws.addEventListener('close', (event) => {
       if (socket !== ws) return;
+      if (event.code === NO_SUCH_SHEET) {
+        socket = null;
+        handlers.onGone();
+        return;
+      }
       const wait = Math.round(delay * (0.8 + Math.random() * 0.4));
       delay = Math.min(delay * 2, MAX_DELAY_MS);
       handlers.onDown(wait);

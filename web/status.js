@@ -57,6 +57,10 @@ export function createStatus(element) {
       if (pending !== null || element?.dataset.state === 'evaluating') return;
       pending = setTimeout(() => show('evaluating', 'evaluating…'), EVALUATING_AFTER_MS);
     },
+    /** The sheet was deleted: what the page shows is all there is. */
+    gone() {
+      show('offline', 'this sheet no longer exists on the server');
+    },
     /** @param {number} retryInMs */
     offline(retryInMs) {
       const seconds = Math.max(1, Math.round(retryInMs / 1000));

@@ -1,5 +1,6 @@
 // `wakesheet render SHEET.md -o OUT.html [--root DIR]`: the standalone record.
 import { dirname, extname, resolve } from 'node:path';
+import { typesetProgress } from '../pipeline/index.js';
 import { recordData, recordPage } from '../pipeline/record.js';
 import { failing, parseArgs, runOne, Sandbox, sheetArgument, UsageError, writeOutput, type FlagSpec } from './shared.js';
 
@@ -24,7 +25,12 @@ export async function renderCommand(argv: string[]): Promise<number> {
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
   const sandbox = new Sandbox();
   try {
-    const { result: r, text, failure } = await runOne(sandbox, file, root);
+    let { result: r, text, failure } = await runOne(sandbox, file, root);
+    // The record must be typeset whole: a run that ran out of time goes on where it stopped.
+    for (let before = Infinity; !failure && r.untypeset > 0 && typesetProgress(before, r.untypeset); ) {
+      before = r.untypeset;
+      ({ result: r, text, failure } = await runOne(sandbox, file, root, text));
+    }
     if (failure) {
       process.stderr.write(`${file}: ${failure}\n`);
       return 1;

@@ -5,7 +5,7 @@ import { existsSync, readFileSync, renameSync, statSync, unlinkSync, writeFileSy
 import { basename, dirname, join, resolve } from 'node:path';
 import { nearestWord } from '../core/index.js';
 import { emptyReport, type SheetResult } from '../pipeline/index.js';
-import { isSheetFile } from '../read/sheet-files.js';
+import { isSheetFile, sheetTooLarge } from '../read/sheet-files.js';
 import { Sandbox, SandboxError } from '../sandbox/sandbox.js';
 
 /** Bad arguments: one line, exit 2. */
@@ -72,14 +72,25 @@ export interface OneRun {
 }
 
 /** Runs one sheet; a sandbox failure (timeout, memory, crash) comes back as the sheet's one error. */
-export async function runOne(sandbox: Sandbox, file: string, root: string, text = readFileSync(file, 'utf8')): Promise<OneRun> {
+export async function runOne(sandbox: Sandbox, file: string, root: string, given?: string): Promise<OneRun> {
+  let text = given;
+  if (text === undefined) {
+    const tooLarge = sheetTooLarge(statSync(file).size);
+    if (tooLarge) return failedRun(tooLarge, '');
+    text = readFileSync(file, 'utf8');
+  }
   try {
     return { result: await sandbox.run(text, { path: resolve(file), root }), text };
   } catch (e) {
     if (!(e instanceof SandboxError)) throw e;
-    const report = emptyReport({ summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 1 }, errors: [{ line: 1, column: 1, message: e.message, code: 'limit' }] });
-    return { result: { ...report, html: '' }, text, failure: e.message };
+    return failedRun(e.message, text);
   }
+}
+
+/** A run that could not happen: the sheet's one error says why. */
+function failedRun(message: string, text: string): OneRun {
+  const report = emptyReport({ summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 1 }, errors: [{ line: 1, column: 1, message, code: 'limit' }] });
+  return { result: { ...report, html: '' }, text, failure: message };
 }
 
 export function failing(r: SheetResult): boolean {

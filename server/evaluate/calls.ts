@@ -124,7 +124,7 @@ function invoke(entry: TradeFunction, bound: Bound, span: Span, scope: Scope): V
     const v = entry.compute(bound.values, scope.context);
     return entry.fields && v.kind === 'record' ? withDeclaredSymbols(v, entry.fields, entry.name) : v;
   } catch (err) {
-    if (err instanceof SheetError) throw err.span ? err : new SheetError(err.code, err.message, span);
+    if (err instanceof SheetError) throw err.span ? err : new (err.constructor as typeof SheetError)(err.code, err.message, span);
     if (err instanceof TradeError) {
       const named = err.message.startsWith(`${entry.name}(`) ? err.message : `${entry.name}(): ${err.message}`;
       throw new SheetError('bad-argument', named, span);

@@ -6,43 +6,52 @@ export interface NameUse {
   span: Span;
 }
 
-/** Names an expression reads (function names live in the registry, not here). */
-export function namesUsed(e: Expr, out: NameUse[] = []): NameUse[] {
-  switch (e.type) {
-    case 'name':
-      out.push({ name: e.name, span: e.span });
-      break;
-    case 'unary':
-      namesUsed(e.arg, out);
-      break;
-    case 'binary':
-      namesUsed(e.left, out);
-      namesUsed(e.right, out);
-      break;
-    case 'compare':
-      e.operands.forEach((o) => namesUsed(o, out));
-      break;
-    case 'call':
-      e.args.forEach((a) => namesUsed(a.value, out));
-      break;
-    case 'field':
-      namesUsed(e.object, out);
-      break;
-    case 'index':
-      namesUsed(e.object, out);
-      namesUsed(e.index, out);
-      break;
-    case 'list':
-      e.items.forEach((i) => namesUsed(i, out));
-      break;
-    case 'convert':
-    case 'paren':
-      namesUsed(e.expr, out);
-      break;
-    case 'number':
-    case 'string':
-    case 'bool':
-      break;
+/**
+ * Names an expression reads (function names live in the registry, not here),
+ * in order of appearance. Iterative: a long chain such as a + b + c + … is a
+ * tree as deep as it is long.
+ */
+export function namesUsed(root: Expr, out: NameUse[] = []): NameUse[] {
+  const todo: Expr[] = [root];
+  const push = (items: readonly Expr[]) => {
+    for (let i = items.length - 1; i >= 0; i--) todo.push(items[i]!);
+  };
+  while (todo.length > 0) {
+    const e = todo.pop()!;
+    switch (e.type) {
+      case 'name':
+        out.push({ name: e.name, span: e.span });
+        break;
+      case 'unary':
+        todo.push(e.arg);
+        break;
+      case 'binary':
+        todo.push(e.right, e.left);
+        break;
+      case 'compare':
+        push(e.operands);
+        break;
+      case 'call':
+        push(e.args.map((a) => a.value));
+        break;
+      case 'field':
+        todo.push(e.object);
+        break;
+      case 'index':
+        todo.push(e.index, e.object);
+        break;
+      case 'list':
+        push(e.items);
+        break;
+      case 'convert':
+      case 'paren':
+        todo.push(e.expr);
+        break;
+      case 'number':
+      case 'string':
+      case 'bool':
+        break;
+    }
   }
   return out;
 }

@@ -6,6 +6,7 @@
 import { diagnostic, SheetError, type Diagnostic } from '../diagnostics.js';
 import type { Registry, Value } from '../core/index.js';
 import type { Expr } from '../parse/ast.js';
+import { isStackOverflow } from '../parse/index.js';
 import { namesUsed } from './graph.js';
 import { evaluate } from './interpreter.js';
 import { Budget, type Limits } from './limits.js';
@@ -112,7 +113,7 @@ function evaluateOne(expr: Expr, line: number, opts: InlineOptions): InlineResul
     const value = evaluate(expr, scope);
     return { value, stale };
   } catch (err) {
-    if (!(err instanceof SheetError)) throw err;
-    return { error: diagnostic(err, line), stale: false };
+    const e = err instanceof SheetError ? err : new SheetError(isStackOverflow(err) ? 'limit' : 'internal', isStackOverflow(err) ? 'this value is nested too deeply to evaluate' : `internal fault while evaluating this value: ${String(err)}`);
+    return { error: diagnostic(e, line), stale: false };
   }
 }

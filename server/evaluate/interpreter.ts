@@ -15,9 +15,12 @@ import type { Scope } from './scope.js';
 export function evaluate(e: Expr, scope: Scope): Value {
   scope.budget.spend(1, e.span);
   switch (e.type) {
-    case 'number':
+    case 'number': {
       if (!e.unit) return quantity(e.value);
-      return withUnit(e.value, e.unit.unit);
+      const q = withUnit(e.value, e.unit.unit);
+      if (!Number.isFinite(q.si)) throw new SheetError('limit', `this number in ${e.unit.unit.text} is beyond the largest number a sheet can hold, about 1.8e308 in SI units`, e.span);
+      return q;
+    }
     case 'string':
       return { kind: 'string', value: e.value };
     case 'bool':

@@ -10,12 +10,21 @@ export interface Limits {
   maxListLength: number;
   /** Wall-clock budget in milliseconds, checked as steps go by. */
   timeoutMs: number;
+  /**
+   * List items the sheet's values may hold at once, all lists together. Set so
+   * that this limit, not the sandbox's heap, is what a sheet of large lists meets.
+   */
+  maxHeldItems?: number;
 }
 
-export const DEFAULT_LIMITS: Limits = { maxSteps: 5_000_000, maxListLength: 100_000, timeoutMs: 2000 };
+export const DEFAULT_LIMITS: Limits = { maxSteps: 5_000_000, maxListLength: 100_000, timeoutMs: 2000, maxHeldItems: 1_000_000 };
+
+/** The sheet ran out of its own budget (steps, time, values held): the rest of the sheet is not evaluated. */
+export class BudgetError extends SheetError {}
 
 export class Budget {
   private steps = 0;
+  private held = 0;
   private readonly deadline: number;
   constructor(readonly limits: Limits) {
     this.deadline = Date.now() + limits.timeoutMs;
@@ -24,10 +33,19 @@ export class Budget {
   spend(n: number, span?: Span): void {
     this.steps += n;
     if (this.steps > this.limits.maxSteps) {
-      throw new SheetError('limit', `the sheet went past ${this.limits.maxSteps.toLocaleString('en')} evaluation steps`, span);
+      throw new BudgetError('limit', `the sheet went past ${this.limits.maxSteps.toLocaleString('en')} evaluation steps`, span);
     }
     if ((this.steps & 0x3ff) < n && Date.now() > this.deadline) {
-      throw new SheetError('limit', `evaluation stopped after ${this.limits.timeoutMs} ms`, span);
+      throw new BudgetError('limit', `evaluation stopped after ${this.limits.timeoutMs} ms`, span);
+    }
+  }
+
+  /** The sheet now holds `n` more list items (a statement's value). */
+  hold(n: number, span?: Span): void {
+    this.held += n;
+    const max = this.limits.maxHeldItems ?? DEFAULT_LIMITS.maxHeldItems!;
+    if (this.held > max) {
+      throw new BudgetError('limit', `the sheet's lists hold more than ${max.toLocaleString('en')} values in all; reduce the points of a sweep or read the data from a file in fewer steps`, span);
     }
   }
 

@@ -2,11 +2,12 @@
 // run's result for every statement whose text and inputs are unchanged.
 import { SheetError, type Diagnostic, diagnostic } from '../diagnostics.js';
 import type { Statement } from '../parse/ast.js';
+import { isStackOverflow } from '../parse/index.js';
 import type { CallContext, Registry, Value } from '../core/index.js';
 import { evaluate } from './interpreter.js';
 import { namesUsed, orderDefinitions, type NameUse } from './graph.js';
 import { evaluateInline, type InlineCacheEntry, type InlineExpr, type InlineResult } from './inline.js';
-import { Budget, DEFAULT_LIMITS, type Limits } from './limits.js';
+import { Budget, BudgetError, DEFAULT_LIMITS, type Limits } from './limits.js';
 import { makeScope, sheetLookup } from './make-scope.js';
 import { sameItems } from './memo.js';
 import { CONSTANTS, type Scope } from './scope.js';
@@ -144,8 +145,18 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     used.add(key);
     const hit = cache.entries.get(key);
     if (hit && sameItems(hit.inputs, inputs) && readsUnchanged(hit.reads, opts.readData)) {
+      if (hit.value) {
+        try {
+          budget.hold(heldItems(hit.value), r.stmt.expr.span);
+        } catch (e) {
+          r.error = diagnostic(e as SheetError, r.stmt.line);
+          stopped = `the sheet stopped at the limit on line ${r.stmt.line}`;
+          return;
+        }
+      }
       r.value = hit.value;
-      if (hit.error) r.error = diagnostic(hit.error, r.stmt.line);
+      // The statement may have moved since its error was found: a statement is one line, so the error is on its line now.
+      if (hit.error) r.error = { ...diagnostic(hit.error, r.stmt.line), line: r.stmt.line };
       r.warnings = hit.warnings;
       hit.reads.forEach((x) => reads.add(x.path));
       return;
@@ -154,18 +165,19 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     const scope = statementScope(opts, budget, values, cache, entry);
     try {
       entry.value = isSweep(r.stmt.expr) ? evaluateSweep(r.stmt.expr, sweepEnv(scope)) : evaluate(r.stmt.expr, scope);
+      budget.hold(heldItems(entry.value), r.stmt.expr.span);
     } catch (e) {
-      if (!(e instanceof SheetError)) throw e;
-      entry.error = e;
-      r.error = diagnostic(e, r.stmt.line);
+      entry.value = undefined;
+      entry.error = statementError(e, r.stmt);
+      r.error = diagnostic(entry.error, r.stmt.line);
     }
     r.value = entry.value;
     r.warnings = entry.warnings;
     r.fresh = true;
     freshCount++;
     entry.reads.forEach((x) => reads.add(x.path));
-    // Limit errors depend on the whole run, not on this statement: never cache them.
-    if (entry.error?.code !== 'limit') cache.entries.set(key, entry);
+    // The sheet's own budget depends on the whole run, not on this statement: never cache it.
+    if (!(entry.error instanceof BudgetError)) cache.entries.set(key, entry);
     else stopped = `the sheet stopped at the limit on line ${r.stmt.line}`;
   };
 
@@ -214,6 +226,30 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   const fallback = (name: string) => (defs.has(name) || broken.has(name) ? opts.fallback?.get(name) : undefined);
   const inline = evaluateInline(opts.inline ?? [], { registry: opts.registry, limits: opts.limits ?? DEFAULT_LIMITS, values, fallback, cache: cache.inline, defaults: cache.defaults });
   return { results, values, reads: [...reads], freshCount, inline };
+}
+
+/** List items a value holds, nested lists and record fields included. */
+function heldItems(v: Value): number {
+  if (v.kind === 'record') {
+    let n = 0;
+    for (const f of v.fields.values()) n += heldItems(f.value);
+    return n;
+  }
+  if (v.kind !== 'list') return 0;
+  let n = v.items.length;
+  for (const item of v.items) if (item.kind === 'list' || item.kind === 'record') n += heldItems(item);
+  return n;
+}
+
+/**
+ * Whatever a statement throws is that statement's error, never the sheet's:
+ * running out of stack is a limit, anything else a fault of ours.
+ */
+export function statementError(e: unknown, stmt: Statement): SheetError {
+  if (e instanceof SheetError) return e;
+  const span = { line: stmt.line, col: 1, end: 1 + stmt.source.length };
+  if (isStackOverflow(e)) return new SheetError('limit', 'this statement is nested too deeply to evaluate; split it into named steps', span);
+  return new SheetError('internal', `internal fault while evaluating this statement: ${e instanceof Error ? e.message : String(e)}`, span);
 }
 
 // Statements are immutable and reused across runs by the pipeline's parse cache.

@@ -2,6 +2,7 @@
 // statement never spans lines, so every token knows its file line directly.
 import { SheetError } from '../diagnostics.js';
 import type { Span } from './ast.js';
+import { checkLiteral, lineTooLong, MAX_LINE_CHARS } from './limits.js';
 
 export type TokenType = 'number' | 'ident' | 'string' | 'op' | 'comment' | 'eof';
 
@@ -29,6 +30,8 @@ export function lex(text: string, line: number, col0 = 1): Token[] {
     while (i < text.length && (text[i] === ' ' || text[i] === '\t')) i++;
     const spaced = i > start;
     if (i >= text.length) break;
+    // A comment may run on; the statement before it may not (checked as it goes, so a huge line costs little).
+    if (i >= MAX_LINE_CHARS && text[i] !== '#') throw lineTooLong(text.length, span(0, text.length));
     const rest = text.slice(i);
     const ch = text[i]!;
     if (ch === '#') {
@@ -38,7 +41,9 @@ export function lex(text: string, line: number, col0 = 1): Token[] {
     }
     const num = NUMBER.exec(rest);
     if (num && !(ch === '.' && out.length > 0 && !spaced && out[out.length - 1]!.type === 'ident')) {
-      out.push({ type: 'number', text: num[0], value: Number(num[0]), span: span(i, i + num[0].length), spaced });
+      const value = Number(num[0]);
+      checkLiteral(num[0], value, span(i, i + num[0].length));
+      out.push({ type: 'number', text: num[0], value, span: span(i, i + num[0].length), spaced });
       i += num[0].length;
       continue;
     }
@@ -69,6 +74,8 @@ export function lex(text: string, line: number, col0 = 1): Token[] {
     }
     throw new SheetError('syntax', `unexpected character "${ch}"`, span(i, i + 1));
   }
+  const last = out[out.length - 1];
+  if (last && last.type !== 'comment' && last.span.end - col0 > MAX_LINE_CHARS) throw lineTooLong(text.length, span(0, text.length));
   out.push({ type: 'eof', text: '', span: span(text.length, text.length), spaced: false });
   return out;
 }

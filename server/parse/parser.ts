@@ -4,13 +4,23 @@
 import { SheetError } from '../diagnostics.js';
 import type { Arg, CompareOp, Expr, Span, Statement } from './ast.js';
 import { lex, type Token } from './lexer.js';
+import { MAX_NESTING, nestedTooDeep } from './limits.js';
 import { KEYWORDS, parseUnitExpr, unitStarts, type TokenCursor } from './units.js';
 
 const COMPARE = new Set(['<', '<=', '>', '>=', '==', '!=']);
 
 class Cursor implements TokenCursor {
   private i = 0;
+  /** Constructs open around the current token: bounds the recursion here and in every later walk. */
+  private depth = 0;
   constructor(private readonly tokens: Token[]) {}
+  /** Opens one level of nesting at `t` (a bracket, a sign, a power, a fraction). */
+  nest(t: Token): void {
+    if (++this.depth > MAX_NESTING) throw nestedTooDeep(t.span);
+  }
+  unnest(): void {
+    this.depth--;
+  }
   peek(offset = 0): Token {
     return this.tokens[Math.min(this.i + offset, this.tokens.length - 1)]!;
   }
@@ -123,7 +133,9 @@ function parseAnd(c: Cursor): Expr {
 function parseNot(c: Cursor): Expr {
   if (c.at('not')) {
     const t = c.next();
+    c.nest(t);
     const arg = parseNot(c);
+    c.unnest();
     return { type: 'unary', op: 'not', arg, span: join(t.span, arg.span) };
   }
   return parseCompare(c);
@@ -164,19 +176,28 @@ function parseAdditive(c: Cursor): Expr {
 
 function parseMultiplicative(c: Cursor): Expr {
   let left = parseUnary(c);
+  // a / b / c is typeset as a fraction inside a fraction: each "/" nests.
+  let fractions = 0;
   while (c.at('*') || c.at('/') || c.at('·')) {
-    const t = c.next().text;
-    const op = t === '/' ? '/' : '*';
+    const t = c.next();
+    const op = t.text === '/' ? '/' : '*';
+    if (op === '/') {
+      c.nest(t);
+      fractions++;
+    }
     const right = parseUnary(c);
     left = { type: 'binary', op, left, right, span: join(left.span, right.span) };
   }
+  for (; fractions > 0; fractions--) c.unnest();
   return left;
 }
 
 function parseUnary(c: Cursor): Expr {
   if (c.at('-') || c.at('+')) {
     const t = c.next();
+    c.nest(t);
     const arg = parseUnary(c);
+    c.unnest();
     // A signed literal is one number: -5 degC is minus five degrees, not the negation of 278.15 K.
     if (arg.type === 'number') return { ...arg, value: t.text === '-' ? -arg.value : arg.value, span: join(t.span, arg.span) };
     return { type: 'unary', op: t.text as '-' | '+', arg, span: join(t.span, arg.span) };
@@ -187,8 +208,9 @@ function parseUnary(c: Cursor): Expr {
 function parsePower(c: Cursor): Expr {
   const base = parsePostfix(c);
   if (c.at('^')) {
-    c.next();
+    c.nest(c.next());
     const exponent = parseUnary(c); // right-associative; 2^-1 allowed
+    c.unnest();
     return { type: 'binary', op: '^', left: base, right: exponent, span: join(base.span, exponent.span) };
   }
   return base;
@@ -241,19 +263,21 @@ function parseAtom(c: Cursor): Expr {
     return { type: 'name', name: t.text, span: t.span };
   }
   if (c.at('(')) {
-    c.next();
+    c.nest(c.next());
     const inner = parseExpr(c);
     const close = c.expect(')', 'a closing ")"');
+    c.unnest();
     return { type: 'paren', expr: inner, span: join(t.span, close.span) };
   }
   if (c.at('[')) {
-    c.next();
+    c.nest(c.next());
     const items: Expr[] = [];
     while (!c.at(']')) {
       items.push(parseExpr(c));
       if (!c.at(']')) c.expect(',', 'a "," or "]" in the list');
     }
     const close = c.next();
+    c.unnest();
     const span = join(t.span, close.span);
     if (unitStarts(c)) {
       const unit = parseUnitExpr(c);
@@ -265,7 +289,7 @@ function parseAtom(c: Cursor): Expr {
 }
 
 function parseCall(c: Cursor, callee: Token): Expr {
-  c.next(); // (
+  c.nest(c.next()); // (
   const args: Arg[] = [];
   let named = false;
   while (!c.at(')')) {
@@ -285,5 +309,6 @@ function parseCall(c: Cursor, callee: Token): Expr {
     if (!c.at(')')) c.expect(',', `"," or ")" in the call to ${callee.text}`);
   }
   const close = c.next();
+  c.unnest();
   return { type: 'call', callee: callee.text, calleeSpan: callee.span, args, span: join(callee.span, close.span) };
 }

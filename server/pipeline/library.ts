@@ -4,6 +4,7 @@
 import { standaloneCss } from '../render/assets.js';
 import { pageHtml, RECORD_POLICY } from '../render/page.js';
 import { SheetPipeline } from './pipeline.js';
+import { typesetProgress } from './report.js';
 import type { RunOptions, SheetReport, SheetResult } from './types.js';
 
 /** A report as one self-contained HTML document. */
@@ -26,5 +27,12 @@ export function withPage(report: SheetReport): SheetResult {
 }
 
 export async function renderSheet(text: string, opts: RunOptions = {}): Promise<SheetResult> {
-  return withPage(new SheetPipeline().run(text, opts));
+  const pipeline = new SheetPipeline();
+  let report = pipeline.run(text, opts);
+  // A run that ran out of time while typesetting goes on where it stopped, while that gets somewhere.
+  for (let before = Infinity; report.untypeset > 0 && typesetProgress(before, report.untypeset); ) {
+    before = report.untypeset;
+    report = pipeline.run(text, opts);
+  }
+  return withPage(report);
 }

@@ -3,9 +3,9 @@
 // re-parses, re-evaluates and re-renders only what changed.
 import { basename, dirname, resolve } from 'node:path';
 import { createRegistry, type Registry, type Value } from '../core/index.js';
-import { diagnostic, SheetError } from '../diagnostics.js';
+import { diagnostic } from '../diagnostics.js';
 import { DEFAULT_LIMITS, EvalCache, evaluateSheet, type InlineExpr, type Limits, type StatementResult } from '../evaluate/index.js';
-import { isStatement, parseExpression, parseLine, type BrokenLine, type ParsedLine, type Statement } from '../parse/index.js';
+import { asSheetError, isStatement, parseExpression, parseLine, type BrokenLine, type ParsedLine, type Statement } from '../parse/index.js';
 import { dataReader, projectPath } from '../read/data-files.js';
 import { loadImages, type ImageCache } from '../read/images.js';
 import { splitFrontMatter } from '../read/front-matter.js';
@@ -44,6 +44,9 @@ export class SheetPipeline {
 
   run(text: string, opts: RunOptions = {}): SheetReport {
     const t0 = performance.now();
+    // One time budget for the whole run: evaluation stops itself at it, and
+    // typesetting shows what it has not reached by then as source text.
+    const deadline = Date.now() + this.limits.timeoutMs;
     const path = opts.path ? resolve(opts.path) : undefined;
     const sheetDir = path ? dirname(path) : resolve(opts.root ?? '.');
     const root = resolve(opts.root ?? sheetDir);
@@ -79,7 +82,16 @@ export class SheetPipeline {
     const settingLine = lineOfSetting(text, 'units');
     const frontMatterProblems = [...(problem ? [problem] : []), ...display.problems.map((message) => ({ line: settingLine, message }))];
     const results = new Map(evaluation.results.map((r) => [r.stmt.line, r]));
-    const parts = this.renderer.render({ sheet, blocks, results, inline: evaluation.inline, images, view: { sig, values: evaluation.values, lastGood: this.lastGood } });
+    const { parts, untypeset } = this.renderer.render({
+      sheet,
+      blocks,
+      results,
+      inline: evaluation.inline,
+      images,
+      view: { sig, values: evaluation.values, lastGood: this.lastGood },
+      deadline,
+      budgetMs: this.limits.timeoutMs,
+    });
     const imageProblems = imageSources.flatMap((i) => {
       const loaded = images.get(i.src);
       return loaded && 'error' in loaded ? [{ line: i.line, message: loaded.error }] : [];
@@ -94,6 +106,7 @@ export class SheetPipeline {
       evaluation,
       inline,
       parts,
+      untypeset,
       sig,
       reads: [...new Set([...evaluation.reads, ...imageSources.filter((i) => !/^[a-z][a-z0-9+.-]*:|^\/\//i.test(i.src)).map((i) => i.src)])].map((p) => projectPath(root, sheetDir, p)),
       elapsedMs: performance.now() - t0,
@@ -131,8 +144,7 @@ export class SheetPipeline {
           try {
             item = { key, line: s.line, text: s.text, expr: parseExpression(s.text, s.line) };
           } catch (e) {
-            if (!(e instanceof SheetError)) throw e;
-            item = { key, line: s.line, text: s.text, error: diagnostic(e, s.line) };
+            item = { key, line: s.line, text: s.text, error: diagnostic(asSheetError(e, { line: s.line, col: 1, end: 1 }), s.line) };
           }
         }
         seen.set(key, item);

@@ -19,6 +19,8 @@ export interface ReportInput {
   evaluation: SheetEvaluation;
   inline: readonly InlineExpr[];
   parts: SheetPart[];
+  /** Statements and prose parts the time budget left untypeset. */
+  untypeset: number;
   sig: number;
   /** Data files read, relative to the project root. */
   reads: string[];
@@ -85,7 +87,7 @@ export function buildReport(input: ReportInput): SheetReport {
     meta: input.meta,
     headerHtml: sheetHeaderHtml(input.title, input.meta, caution),
     parts: input.parts,
-    summaryHtml: summaryHtml(summary, problems),
+    summaryHtml: summaryHtml(summary, problems, input.untypeset ? [untypesetNote(input.untypeset)] : []),
     summary,
     values,
     inputs: inputsList,
@@ -96,12 +98,27 @@ export function buildReport(input: ReportInput): SheetReport {
     elapsedMs: input.elapsedMs,
     caution,
     freshStatements: evaluation.freshCount,
+    untypeset: input.untypeset,
   };
 }
 
 /** A value's JSON with the warnings its statement raised (a record's own are in its JSON already). */
 function withNotes(json: ValueJson, warnings: readonly string[]): ValueJson {
   return warnings.length ? { ...json, warnings: [...(json.warnings ?? []), ...warnings] } : json;
+}
+
+/**
+ * A run that left `after` of `before` statements untypeset did enough to be
+ * worth another run of the same text (which goes on where it stopped). A
+ * sheet too large to typeset in any run stops after one.
+ */
+export function typesetProgress(before: number, after: number): boolean {
+  return after <= 0.9 * before;
+}
+
+function untypesetNote(n: number): string {
+  const what = n === 1 ? 'One statement or paragraph was' : `${n.toLocaleString('en')} statements and paragraphs were`;
+  return `${what} not typeset within the sheet's time limit and ${n === 1 ? 'is' : 'are'} shown as source text; the values are all current.`;
 }
 
 function needsCaution(v: Value): boolean {
@@ -130,6 +147,7 @@ export function emptyReport(fields: Partial<SheetReport> = {}): SheetReport {
     elapsedMs: 0,
     caution: false,
     freshStatements: 0,
+    untypeset: 0,
     ...fields,
   };
 }

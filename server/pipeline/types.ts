@@ -67,6 +67,11 @@ export interface SheetReport {
   caution: boolean;
   /** Statements computed afresh in this run (the rest were reused). */
   freshStatements: number;
+  /**
+   * Statements and prose parts shown as source text because the sheet's time
+   * budget ran out while typesetting; a later run of the same text typesets more.
+   */
+  untypeset: number;
 }
 
 /** A report with its standalone page. */

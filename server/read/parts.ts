@@ -26,7 +26,16 @@ export interface ImageSource {
   line: number;
 }
 
-export type ProsePart = { kind: 'prose'; tokens: Token[]; firstLine: number; raw: string; inline: InlineSource[]; images: ImageSource[] };
+export type ProsePart = {
+  kind: 'prose';
+  tokens: Token[];
+  firstLine: number;
+  raw: string;
+  inline: InlineSource[];
+  images: ImageSource[];
+  /** Set when the prose could not be read as Markdown: why; it is shown as plain text. */
+  plain?: string;
+};
 export type BlockPart = { kind: 'block'; fenceLine: number; lines: BlockLine[] };
 export type SourcePart = ProsePart | BlockPart;
 
@@ -45,7 +54,13 @@ function isBasisFence(t: Token): t is Token & { type: 'code'; lang: string; raw:
 }
 
 export function splitParts(text: string): SplitSheet {
-  const tokens = new Lexer({ gfm: true }).lex(text);
+  let tokens: TokensList;
+  try {
+    tokens = new Lexer({ gfm: true }).lex(text);
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    return splitPlain(text);
+  }
   const parts: SourcePart[] = [];
   let line = 1;
   let prose: Token[] = [];
@@ -70,6 +85,44 @@ export function splitParts(text: string): SplitSheet {
   }
   flush();
   return { parts, links: tokens.links };
+}
+
+/** Why prose is shown as plain text when marked cannot follow it. */
+export const PLAIN_PROSE = 'This text nests Markdown (quotes, lists, emphasis) too deeply to be laid out; it is shown as plain text.';
+
+/**
+ * Markdown nested thousands deep (">" after ">", list in list) runs marked's
+ * lexer out of stack. The sheet is then split line by line: basis blocks as
+ * usual, the text between them kept as plain text, so the numbers still
+ * evaluate.
+ */
+function splitPlain(text: string): SplitSheet {
+  const lines = text.split('\n');
+  const parts: SourcePart[] = [];
+  let proseStart = 0;
+  const prose = (end: number) => {
+    if (end <= proseStart) return;
+    const raw = lines.slice(proseStart, end).join('\n');
+    parts.push({ kind: 'prose', tokens: [], firstLine: proseStart + 1, raw, inline: [], images: [], plain: PLAIN_PROSE });
+  };
+  for (let i = 0; i < lines.length; i++) {
+    const open = /^ {0,3}(`{3,}|~{3,})[ \t]*basis(?:\s|$)/.exec(lines[i]!);
+    if (!open) continue;
+    prose(i);
+    const fence = open[1]!;
+    const body: BlockLine[] = [];
+    let j = i + 1;
+    for (; j < lines.length; j++) {
+      const t = lines[j]!.trim();
+      if (t.startsWith(fence) && t.replace(/[`~]/g, '') === '') break;
+      body.push({ line: j + 1, col: 1, text: lines[j]! });
+    }
+    parts.push({ kind: 'block', fenceLine: i + 1, lines: body });
+    i = j;
+    proseStart = j + 1;
+  }
+  prose(lines.length);
+  return { parts, links: Object.create(null) as TokensList['links'] };
 }
 
 /** The `=expr` code spans and the images of a prose part, in document order, with their file lines. */

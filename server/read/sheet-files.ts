@@ -36,3 +36,13 @@ export function findSheets(dir: string): string[] {
   walk(dir);
   return out;
 }
+
+/** The largest sheet read, in bytes: past it a sheet is refused with its own message, before it is read. */
+export const MAX_SHEET_BYTES = 8 * 1024 * 1024;
+
+/** Why a sheet of `bytes` bytes is not read, or null when it may be. */
+export function sheetTooLarge(bytes: number): string | null {
+  if (bytes <= MAX_SHEET_BYTES) return null;
+  const mib = (n: number) => `${(n / 1024 / 1024).toFixed(1).replace(/\.0$/, '')} MiB`;
+  return `The sheet is ${mib(bytes)}; sheets are read up to ${mib(MAX_SHEET_BYTES)}. Keep large tables in a CSV file that the sheet reads.`;
+}

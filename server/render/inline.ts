@@ -19,7 +19,9 @@ export function inlineHtml(text: string, result: InlineResult, sig: number): str
 
 function build(text: string, r: InlineResult, sig: number): string {
   if (r.error) {
-    return `<span class="ws-inline ws-inline-error" title="${escapeHtml(r.error.message)}">=${escapeHtml(text)} ⚠ ${escapeHtml(r.error.message)}</span>`;
+    // A very long expression is cut, so the message after it stays in view.
+    const shownText = text.length > 60 ? `${text.slice(0, 60)}…` : text;
+    return `<span class="ws-inline ws-inline-error" title="${escapeHtml(r.error.message)}">=${escapeHtml(shownText)} ⚠ ${escapeHtml(r.error.message)}</span>`;
   }
   const v = r.value!;
   if (r.stale) {

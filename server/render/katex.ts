@@ -1,17 +1,29 @@
 // KaTeX with a cache: a re-render after one changed input redraws only the
 // formulas whose text changed. Trust stays off (no \href to javascript:).
+// The cache is bounded by the characters it holds, not by a count of
+// formulas: a sheet of long formulas must not take the memory of the sheet.
 import katex from 'katex';
+import { compactHtml } from './html.js';
 
 const cache = new Map<string, string>();
-const MAX = 20_000;
+/** Characters of LaTeX and html the cache may hold (one byte each once compact). */
+const MAX_CHARS = 6_000_000;
+let held = 0;
 
 export function mathHtml(latex: string, display = false): string {
   const key = (display ? 'D' : 'I') + latex;
   const hit = cache.get(key);
   if (hit !== undefined) return hit;
-  const html = katex.renderToString(latex, { throwOnError: false, displayMode: display, output: 'htmlAndMathml', strict: 'ignore', trust: false, maxExpand: 200 });
-  if (cache.size >= MAX) cache.delete(cache.keys().next().value!);
+  const html = compactHtml(katex.renderToString(latex, { throwOnError: false, displayMode: display, output: 'htmlAndMathml', strict: 'ignore', trust: false, maxExpand: 200 }));
+  const size = key.length + html.length;
+  if (size > MAX_CHARS / 8) return html; // a formula this long is not worth keeping
+  while (held + size > MAX_CHARS) {
+    const [oldKey, oldHtml] = cache.entries().next().value!;
+    cache.delete(oldKey);
+    held -= oldKey.length + oldHtml.length;
+  }
   cache.set(key, html);
+  held += size;
   return html;
 }
 

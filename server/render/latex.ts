@@ -116,8 +116,13 @@ export function exprLatex(e: Expr, ctx: LatexContext): string {
       if (e.op === 'not') return `\\lnot ${sub(e.arg)}`;
       return `${e.op}${compound(e.arg, ctx) && e.arg.type !== 'unary' ? bracket(sub(e.arg)) : sub(e.arg)}`;
     case 'binary': {
-      const l = sub(e.left);
-      const r = sub(e.right);
+      // Each side is typeset once: a fraction or a power shows a bracketed side
+      // without its brackets, and typesetting it twice would double the work
+      // at every level of nesting.
+      const left = sides(e.left, ctx);
+      const right = sides(e.right, ctx);
+      const l = left.shown;
+      const r = right.shown;
       switch (e.op) {
         case '+':
           return `${l} + ${r}`;
@@ -126,9 +131,9 @@ export function exprLatex(e: Expr, ctx: LatexContext): string {
         case '*':
           return `${wrapIfSum(e.left, l, ctx)} \\cdot ${wrapIfSum(e.right, r, ctx)}`;
         case '/':
-          return `\\frac{${stripParen(e.left, ctx)}}{${stripParen(e.right, ctx)}}`;
+          return `\\frac{${left.bare}}{${right.bare}}`;
         case '^':
-          return `{${compound(e.left, ctx) && e.left.type !== 'paren' ? bracket(l) : l}}^{${stripParen(e.right, ctx)}}`;
+          return `{${compound(e.left, ctx) && e.left.type !== 'paren' ? bracket(l) : l}}^{${right.bare}}`;
         case 'and':
           return `${l} \\land ${r}`;
         case 'or':
@@ -164,8 +169,14 @@ export function exprLatex(e: Expr, ctx: LatexContext): string {
   return '';
 }
 
-function stripParen(e: Expr, ctx: LatexContext): string {
-  return e.type === 'paren' ? exprLatex(e.expr, ctx) : exprLatex(e, ctx);
+/** A side of a binary operator as shown in line (`shown`) and with its own brackets taken off (`bare`). */
+function sides(e: Expr, ctx: LatexContext): { shown: string; bare: string } {
+  if (e.type !== 'paren') {
+    const tex = exprLatex(e, ctx);
+    return { shown: tex, bare: tex };
+  }
+  const bare = exprLatex(e.expr, ctx);
+  return { shown: bracket(bare), bare };
 }
 
 function wrapIfSum(e: Expr, tex: string, ctx?: LatexContext): string {

@@ -20,14 +20,15 @@ export interface SummaryItem {
   kind: 'error' | 'fail';
 }
 
-export function summaryHtml(s: SheetSummary, items: SummaryItem[]): string {
+export function summaryHtml(s: SheetSummary, items: SummaryItem[], notes: readonly string[] = []): string {
   const state = s.errors > 0 ? 'has-errors' : s.checksFailed > 0 ? 'has-failures' : 'all-clear';
   const cell = (n: number, singular: string, plural: string, cls: string) => `<div class="ws-count ${cls}" data-count="${cls}"><span class="ws-n">${n}</span> ${escapeHtml(nounFor(n, singular, plural))}</div>`;
   const list = items.length
     ? `<ol class="ws-problems">${items.map((i) => `<li class="ws-${i.kind}"><a href="#L${i.line}">line ${i.line}</a> ${escapeHtml(i.text)}</li>`).join('')}</ol>`
     : '';
   const notRun = s.checksNotRun > 0 ? cell(s.checksNotRun, 'check not run', 'checks not run', 'not-run') : '';
-  return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'input', 'inputs', 'inputs')}${cell(s.results, 'result', 'results', 'results')}${cell(s.checksPassed, 'check passed', 'checks passed', 'passed')}${cell(s.checksFailed, 'check failed', 'checks failed', 'failed')}${notRun}${cell(s.errors, 'error', 'errors', 'errors')}${list}</section>`;
+  const notesHtml = notes.map((n) => `<p class="ws-summary-note">${escapeHtml(n)}</p>`).join('');
+  return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'input', 'inputs', 'inputs')}${cell(s.results, 'result', 'results', 'results')}${cell(s.checksPassed, 'check passed', 'checks passed', 'passed')}${cell(s.checksFailed, 'check failed', 'checks failed', 'failed')}${notRun}${cell(s.errors, 'error', 'errors', 'errors')}${list}${notesHtml}</section>`;
 }
 
 export function headerHtml(title: string, meta: Record<string, string>): string {

@@ -5,13 +5,14 @@
 import type { Value } from '../core/index.js';
 import { sameItems, type InlineResult, type StatementResult } from '../evaluate/index.js';
 import type { BrokenLine, ParsedLine, Statement } from '../parse/index.js';
-import { isStatement } from '../parse/index.js';
+import { isStackOverflow, isStatement } from '../parse/index.js';
 import type { LoadedImage } from '../read/images.js';
-import type { ImageSource, InlineSource, SplitSheet } from '../read/parts.js';
+import { PLAIN_PROSE, type ImageSource, type InlineSource, type SplitSheet } from '../read/parts.js';
 import { inlineHtml } from './inline.js';
 import { displayKey } from './numbers.js';
 import { embedImages, inlineValueSpans, proseHtml } from './prose.js';
-import { errorHtml, lastGoodHtml, statementHtml, type StatementView } from './statement.js';
+import { compactHtml, escapeHtml } from './html.js';
+import { errorHtml, lastGoodHtml, statementHtml, untypesetHtml, type StatementView } from './statement.js';
 
 /** One piece of the sheet's <main>: a run of prose or one input block. */
 export interface SheetPart {
@@ -35,6 +36,19 @@ export interface PartsInput {
   /** The prose's images, embedded or refused. */
   images: ReadonlyMap<string, LoadedImage>;
   view: SheetView;
+  /**
+   * The sheet's time budget ends here (Date.now() ms): statements and prose not
+   * typeset by then are shown as their source text, and typeset on a later run.
+   */
+  deadline?: number;
+  /** The budget in ms, for the words of the notice. */
+  budgetMs?: number;
+}
+
+export interface RenderedParts {
+  parts: SheetPart[];
+  /** Statements and prose parts shown as source text because the time ran out. */
+  untypeset: number;
 }
 
 interface Memo {
@@ -53,7 +67,11 @@ export class PartRenderer {
   /** How numbers were shown last time (figures, units): every memo holds for one. */
   private display = '';
 
-  render(input: PartsInput): SheetPart[] {
+  /** Pieces shown untypeset in the current run. */
+  private cut = 0;
+
+  render(input: PartsInput): RenderedParts {
+    this.cut = 0;
     const display = displayKey(input.view.sig);
     if (display !== this.display) {
       this.parts.clear();
@@ -66,7 +84,7 @@ export class PartRenderer {
     input.sheet.parts.forEach((part, i) => {
       if (part.kind === 'prose') {
         const key = `t${i}`;
-        out.push({ key, html: this.prose(key, part.raw, part.tokens, part.inline, input, part.images) });
+        out.push({ key, html: part.plain ? compactHtml(plainHtml(part.raw, part.plain)) : this.prose(key, part.raw, part.tokens, part.inline, input, part.images) });
         return;
       }
       const items = input.blocks[blockIndex++]!;
@@ -76,7 +94,16 @@ export class PartRenderer {
     });
     // Forget statements that left the sheet, now and then rather than every run.
     if (this.statements.size > 2 * statementCount + 100) this.forgetStatements(input);
-    return out;
+    return { parts: out, untypeset: this.cut };
+  }
+
+  private outOfTime(input: PartsInput): boolean {
+    return input.deadline !== undefined && Date.now() > input.deadline;
+  }
+
+  private timeReason(input: PartsInput): string {
+    const budget = input.budgetMs === undefined ? 'its time limit' : `its ${input.budgetMs.toLocaleString('en')} ms time limit`;
+    return `the sheet reached ${budget} first; shown as its source text until a later run typesets it`;
   }
 
   private block(key: string, fenceLine: number, items: readonly ParsedLine[], input: PartsInput): string {
@@ -88,19 +115,63 @@ export class PartRenderer {
     }
     const memo = this.parts.get(key);
     if (memo && sameItems(memo.inputs, inputs)) return memo.html;
-    const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, view) : brokenHtml(item, view)));
-    const html = `<div class="ws-block" data-fence-line="${fenceLine}">${pieces.join('')}</div>`;
-    this.parts.set(key, { html, inputs });
+    if (this.outOfTime(input)) {
+      // Out of time before the block began: its lines as they stand, in one piece (cheap for a huge sheet).
+      const count = items.length;
+      this.cut += count;
+      const source = items.map((item) => item.source).join('\n');
+      return compactHtml(`<div class="ws-block ws-untypeset" data-fence-line="${fenceLine}"><p class="ws-untypeset-note">${count === 1 ? 'This statement is' : `These ${count.toLocaleString('en')} statements are`} not typeset: ${escapeHtml(this.timeReason(input))}.</p><pre class="ws-plain-text">${escapeHtml(source)}</pre></div>`);
+    }
+    const cutBefore = this.cut;
+    const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, input) : compactHtml(brokenHtml(item, view))));
+    const open = `<div class="ws-block" data-fence-line="${fenceLine}">`;
+    const html = `${open}${pieces.join('')}</div>`;
+    this.shareStatements(items, pieces, html, open.length);
+    // A block with statements cut short is not kept: the next run finishes it.
+    if (this.cut === cutBefore) this.parts.set(key, { html, inputs });
+    else this.parts.delete(key);
     return html;
   }
 
+  /**
+   * The html of a block is held once: each statement's memo becomes a slice
+   * of the block's string (V8 shares the characters), instead of a copy of
+   * its own beside the block's.
+   */
+  private shareStatements(items: readonly ParsedLine[], pieces: readonly string[], html: string, start: number): void {
+    let at = start;
+    items.forEach((item, i) => {
+      const length = pieces[i]!.length;
+      if (isStatement(item)) {
+        const memo = this.statements.get(statementKey(item));
+        // Only a memo that holds this very html (a statement cut short by the time is not memoised).
+        if (memo && memo.html === pieces[i]) memo.html = html.slice(at, at + length);
+      }
+      at += length;
+    });
+  }
+
   /** One statement's HTML, reused while its result and inputs are the same objects. */
-  private statement(r: StatementResult, view: SheetView): string {
+  private statement(r: StatementResult, input: PartsInput): string {
+    const { view } = input;
     const key = statementKey(r.stmt);
     const inputs = statementInputs(r, view, []);
     const memo = this.statements.get(key);
     if (memo && sameItems(memo.inputs, inputs)) return memo.html;
-    const html = `<a id="L${r.stmt.line}" class="ws-anchor"></a>${statementHtml(r, view)}`;
+    const anchor = `<a id="L${r.stmt.line}" class="ws-anchor"></a>`;
+    if (this.outOfTime(input)) {
+      this.cut++;
+      return compactHtml(anchor + untypesetHtml(r, view, this.timeReason(input)));
+    }
+    let body: string;
+    try {
+      body = statementHtml(r, view);
+    } catch (e) {
+      // One formula the typesetter cannot take is that statement's problem only.
+      const reason = isStackOverflow(e) ? 'its formula nests too deeply for the typesetter' : `a fault inside Wakesheet while typesetting it (please report it): ${e instanceof Error ? e.message : String(e)}`;
+      body = untypesetHtml(r, view, reason);
+    }
+    const html = compactHtml(anchor + body);
     this.statements.set(key, { html, inputs });
     return html;
   }
@@ -110,8 +181,16 @@ export class PartRenderer {
     const imageInputs = images.map((i) => input.images.get(i.src));
     let base: string;
     if (memo && memo.inputs[0] === raw && sameItems(memo.inputs.slice(1), imageInputs)) base = memo.html;
-    else {
-      base = embedImages(proseHtml(tokens, input.sheet.links), input.images);
+    else if (this.outOfTime(input)) {
+      this.cut++;
+      return compactHtml(plainHtml(raw, `Not laid out yet: ${this.timeReason(input)}.`));
+    } else {
+      try {
+        base = compactHtml(embedImages(proseHtml(tokens, input.sheet.links), input.images));
+      } catch (e) {
+        if (!isStackOverflow(e)) throw e;
+        base = compactHtml(plainHtml(raw, PLAIN_PROSE));
+      }
       this.parts.set(key, { html: base, inputs: [raw, ...imageInputs] });
     }
     if (inline.length === 0) return base;
@@ -130,7 +209,7 @@ export class PartRenderer {
       const result = input.inline.get(inlineKey(source.line, source.text));
       if (result) html = html.replace(span.match, () => inlineHtml(source.text, result, input.view.sig));
     }
-    return html;
+    return compactHtml(html);
   }
 
   private forgetStatements(input: PartsInput): void {
@@ -142,6 +221,11 @@ export class PartRenderer {
 
 function statementKey(s: Statement): string {
   return `${s.line}\u0000${s.source}`;
+}
+
+/** Prose that is not laid out as Markdown: its text as it stands, and why. */
+function plainHtml(raw: string, reason: string): string {
+  return `<div class="ws-plain"><p class="ws-untypeset-note">${escapeHtml(reason)}</p><pre class="ws-plain-text">${escapeHtml(raw)}</pre></div>`;
 }
 
 function brokenHtml(item: BrokenLine, view: SheetView): string {

@@ -42,7 +42,9 @@ export function inlineValueSpans(html: string): Array<{ match: string; expr: str
 }
 
 function decode(s: string): string {
-  return s.replace(/&(lt|gt|amp|quot|#39|#x27);/g, (_, e: string) => ({ lt: '<', gt: '>', amp: '&', quot: '"', '#39': "'", '#x27': "'" })[e]!);
+  return s
+    .replace(/&#x([0-9a-f]+);/gi, (_, hex: string) => String.fromCodePoint(parseInt(hex, 16)))
+    .replace(/&(lt|gt|amp|quot|#39);/g, (_, e: string) => ({ lt: '<', gt: '>', amp: '&', quot: '"', '#39': "'" })[e]!);
 }
 
 /**

@@ -186,6 +186,24 @@ function exprHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'expr'
   return `<div class="ws-stmt ws-expr"${attrs({ 'data-line': s.line })}${inline ? dataAttrs(name, v) : ''}><div class="ws-formula">${chainHtml(symbolic, rest)}${descHtml(s.description)}</div>${block ?? ''}${warningsHtml(r)}</div>`;
 }
 
+/**
+ * A statement that was not typeset, shown as its source text with its value
+ * (or error) in plain words and the reason: the sheet's time ran out before
+ * its turn, or its formula nests too deeply for the typesetter.
+ */
+export function untypesetHtml(r: StatementResult, view: StatementView, reason: string): string {
+  const s = r.stmt;
+  const ok = !r.error && !r.blockedBy && !r.skipped && r.value !== undefined;
+  const data = ok && s.type === 'define' ? dataAttrs(s.name, r.value!) : ok && s.type === 'expr' ? dataAttrs(s.source, r.value!) : '';
+  let outcome = '';
+  if (r.error) outcome = errorHtml(r.error.message, r.error.line, r.error.column);
+  else if (r.blockedBy || r.skipped) outcome = blockedHtml(r);
+  else if (s.type === 'check') outcome = `<span class="ws-mark">${r.passed ? '✓ pass' : '✗ fail'}</span>`;
+  else if (r.value) outcome = `<span class="ws-plain-value">= ${escapeHtml(displayText(r.value, view.sig))}</span>`;
+  const passed = s.type === 'check' && ok ? attrs({ 'data-passed': String(r.passed === true) }) : '';
+  return `<div class="ws-stmt ws-untypeset"${attrs({ 'data-line': s.line })}${data}${passed}><code class="ws-source">${escapeHtml(s.source)}</code>${outcome}<div class="ws-untypeset-note">not typeset: ${escapeHtml(reason)}</div></div>`;
+}
+
 export function statementHtml(r: StatementResult, view: StatementView): string {
   // After a limit the rest of the sheet is listed, not typeset: typesetting is what would take the time.
   if (r.skipped) return `<div class="ws-stmt ws-skipped"${attrs({ 'data-line': r.stmt.line })}><code class="ws-source">${escapeHtml(r.stmt.source)}</code>${blockedHtml(r)}</div>`;

@@ -8,8 +8,12 @@ const GREEK = new Set([
 const GROUPS = new Set(['Re', 'Ma', 'St', 'Fr', 'Pr', 'Co', 'Eu', 'Sr', 'Kn', 'We', 'Gr', 'Ra', 'Nu', 'Pe', 'Sc', 'Ri']);
 const SUB_WORDS = new Map([['inf', '\\infty'], ['infty', '\\infty']]);
 
+// In text mode \^ and \~ are accents (they would put a hat on the next
+// letter), so those two and the backslash are written as their text symbols.
+const TEXT_SYMBOLS: Record<string, string> = { '\\': '\\textbackslash{}', '^': '\\textasciicircum{}', '~': '\\textasciitilde{}' };
+
 function escapeText(s: string): string {
-  return s.replace(/[\\{}$&#^_%~]/g, (c) => `\\${c === '\\' ? 'backslash' : c}`).replace(/\\backslash/g, '\\textbackslash{}');
+  return s.replace(/[\\{}$&#^_%~]/g, (c) => TEXT_SYMBOLS[c] ?? `\\${c}`);
 }
 
 function base(word: string): string {

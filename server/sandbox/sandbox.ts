@@ -2,7 +2,9 @@
 // heap. A worker thread is not enough (some heap blow-ups abort the whole
 // process); a child that dies takes nothing with it. Requests queue one at a
 // time; a request that overruns its wall clock gets the child killed and a
-// fresh one started for the next request.
+// fresh one started. A request whose child died or hung is tried once more in
+// a fresh child (which holds no other sheet: a sheet that fits alone gets
+// the whole heap), and only then fails with the reason.
 import { fork, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { DEFAULT_LIMITS, type Limits } from '../evaluate/index.js';
@@ -29,8 +31,20 @@ export class SandboxError extends Error {
 
 interface Pending {
   req: ChildRequest;
+  /** Runs started for this request so far. */
+  tries: number;
   resolve: (r: SheetResult) => void;
   reject: (e: Error) => void;
+}
+
+/**
+ * How long a run may take before its child is killed. The pipeline keeps to
+ * its own time budget, evaluation and typesetting alike; this is for what it
+ * cannot interrupt (one long formula, a huge Markdown file) and for faults.
+ */
+export function backstopMs(timeoutMs: number): number {
+  // Reading, parsing and reporting an 8 MiB sheet take seconds of their own.
+  return Math.max(3 * timeoutMs, timeoutMs + 8000);
 }
 
 const childPath = fileURLToPath(new URL(import.meta.url.endsWith('.ts') ? './child.ts' : './child.js', import.meta.url));
@@ -57,7 +71,7 @@ export class Sandbox {
   run(text: string, opts: RunOptions): Promise<SheetResult> {
     if (this.closed) return Promise.reject(new Error('the sandbox is closed'));
     return new Promise((resolve, reject) => {
-      this.queue.push({ req: { id: this.nextId++, text, opts, limits: this.limits }, resolve, reject });
+      this.queue.push({ req: { id: this.nextId++, text, opts, limits: this.limits }, tries: 0, resolve, reject });
       void this.pump();
     });
   }
@@ -102,7 +116,8 @@ export class Sandbox {
         this.busy = undefined;
         clearTimeout(this.timer);
         const oom = /heap out of memory|Allocation failed|JavaScript heap/i.test(stderr) || code === 134 || signal === 'SIGABRT';
-        job.reject(
+        this.failOrRetry(
+          job,
           oom
             ? new SandboxError('memory', `the sheet used more than the ${this.heapMb} MiB memory limit; evaluation stopped`)
             : new SandboxError('crash', `the evaluator stopped unexpectedly (${signal ?? `exit ${code}`})`),
@@ -119,6 +134,7 @@ export class Sandbox {
     if (this.busy || this.queue.length === 0 || this.closed) return;
     const job = this.queue.shift()!;
     this.busy = job;
+    job.tries++;
     try {
       await this.start();
     } catch (e) {
@@ -129,17 +145,24 @@ export class Sandbox {
     }
     const child = this.child!;
     (child as unknown as { channel?: { ref(): void } }).channel?.ref();
-    // The interpreter stops itself at the time budget; this is the backstop for
-    // everything after evaluation (typesetting a large sheet's first render
-    // can take a few seconds on its own).
+    // The pipeline stops itself at the time budget; this is the backstop.
     this.timer = setTimeout(() => {
       if (this.busy !== job) return;
       this.busy = undefined;
-      job.reject(new SandboxError('timeout', `evaluation took longer than ${this.limits.timeoutMs} ms and was stopped`));
       this.kill();
+      this.failOrRetry(job, new SandboxError('timeout', `evaluation took longer than ${this.limits.timeoutMs} ms and was stopped`));
       void this.pump();
-    }, Math.max(3 * this.limits.timeoutMs, this.limits.timeoutMs + 8000));
+    }, backstopMs(this.limits.timeoutMs));
     child.send(job.req);
+  }
+
+  /** A run lost with its child: once more, first in line, in a fresh child; then the reason. */
+  private failOrRetry(job: Pending, error: SandboxError): void {
+    if (job.tries < 2) {
+      this.queue.unshift(job);
+      return;
+    }
+    job.reject(new SandboxError(error.code, `${error.message} (also on a second try)`));
   }
 
   private finish(m: ChildReply): void {

@@ -95,15 +95,14 @@ async function requestedSheet(context: AppContext, req: Request, res: Response):
     return notFound();
   }
   const { store } = context;
-  if (!store.knows(sheet)) return notFound();
-  if (store.has(sheet)) {
-    // Defence in depth: the store only lists files inside the folder, but
-    // check the real path again before showing anything.
-    try {
-      await resolveSheetFile(context.realRoot, sheet);
-    } catch (error) {
-      if (!(error instanceof SheetPathError && error.code === 'missing')) return notFound();
-    }
+  // A deleted sheet stays with the pages that show it (they were told), not at its URL.
+  if (!store.has(sheet)) return notFound();
+  // Defence in depth: the store only lists files inside the folder, but
+  // check the real path again before showing anything.
+  try {
+    await resolveSheetFile(context.realRoot, sheet);
+  } catch (error) {
+    if (!(error instanceof SheetPathError && error.code === 'missing')) return notFound();
   }
   await Promise.race([store.whenEvaluated(sheet), delay(FIRST_EVALUATION_WAIT_MS)]);
   return sheet;

@@ -3,7 +3,7 @@
 import { createServer, type Server } from 'node:http';
 import { realpath, stat } from 'node:fs/promises';
 import path from 'node:path';
-import { Sandbox } from '../sandbox/sandbox.js';
+import { SandboxPool } from '../sandbox/pool.js';
 import { createApp } from './http.js';
 import { LiveHub, type LiveOptions } from './live.js';
 import { HostPolicy, hostForUrl, isLoopbackHost, isWildcardHost } from './security.js';
@@ -44,7 +44,8 @@ export async function startServer(options: ServeOptions): Promise<RunningServer>
   if (!(await stat(root)).isDirectory()) throw new Error(`not a folder: ${options.dir}`);
 
   const ownsRunner = options.runner === undefined;
-  const runner = options.runner ?? new Sandbox({ timeoutMs: 2000 });
+  // Two evaluators: a sheet that takes its whole time budget holds back only one of them.
+  const runner = options.runner ?? new SandboxPool(2, { timeoutMs: 2000 });
   void runner.warm?.().catch(() => {}); // a failing start shows up at the first sheet
   const store = new SheetStore(root, runner);
   const watcher = await FolderWatcher.start(root, {

@@ -1,7 +1,9 @@
 // The WebSocket side: who follows which sheet, what to send them, and a
 // heartbeat that drops connections that stopped answering. Each client gets a
 // complete update when it starts following (so a reconnect re-syncs), then
-// relative updates that carry only the parts whose html changed.
+// relative updates that carry only the parts whose html changed. Every frame
+// is serialised once and the same bytes go to every client; a client that
+// lets more than MAX_QUEUED_BYTES pile up unread is dropped.
 import type { IncomingMessage } from 'node:http';
 import type { Duplex } from 'node:stream';
 import { WebSocket, WebSocketServer } from 'ws';
@@ -16,9 +18,16 @@ export interface LiveOptions {
   heartbeatMs?: number;
   /** Index changes come in bursts (one per sheet at start-up): send at most this often. */
   indexThrottleMs?: number;
+  /** Bytes a client may leave unread; past them it is dropped (its page reconnects and re-follows). */
+  maxQueuedBytes?: number;
 }
 
-const DEFAULTS: Required<LiveOptions> = { heartbeatMs: 15_000, indexThrottleMs: 40 };
+const DEFAULTS: Required<LiveOptions> = { heartbeatMs: 15_000, indexThrottleMs: 40, maxQueuedBytes: 16 * 1024 * 1024 };
+
+/** Close code for a follow of a sheet that no longer exists: the page stops reconnecting. */
+export const NO_SUCH_SHEET = 4404;
+/** Close code for a client that does not read what it is sent. */
+export const NOT_READING = 4408;
 
 interface Client {
   socket: WebSocket;
@@ -32,6 +41,8 @@ export class LiveHub {
   private readonly options: Required<LiveOptions>;
   private readonly heartbeat: NodeJS.Timeout;
   private indexTimer: NodeJS.Timeout | null = null;
+  /** The complete update of each sheet as sent, for the version it was made for. */
+  private readonly completeFrames = new Map<string, { version: number; frame: Buffer }>();
 
   constructor(
     private readonly store: SheetStore,
@@ -43,6 +54,7 @@ export class LiveHub {
     this.heartbeat = setInterval(() => this.beat(), this.options.heartbeatMs);
     this.heartbeat.unref();
     store.on('sheet', (update) => this.sendUpdate(update));
+    store.on('forgotten', (sheet) => this.completeFrames.delete(sheet));
     store.on('busy', (sheet) => this.sendToFollowers(sheet, { type: 'busy', sheet }));
     store.on('index', () => this.scheduleIndex());
     store.isFollowed = (sheet) => this.isFollowed(sheet);
@@ -84,13 +96,13 @@ export class LiveHub {
       if (!msg) return socket.close(1008, 'unexpected message');
       if (msg.target === 'index') {
         client.follows = { target: 'index' };
-        this.send(client, this.store.indexMessage());
+        this.send(client, encode(this.store.indexMessage()));
         return;
       }
-      const update = this.store.complete(msg.sheet);
-      if (!update) return socket.close(1008, 'no such sheet');
-      client.follows = { target: 'sheet', sheet: msg.sheet, version: update.version };
-      this.send(client, update);
+      const complete = this.completeFrame(msg.sheet);
+      if (!complete) return socket.close(NO_SUCH_SHEET, 'no such sheet');
+      client.follows = { target: 'sheet', sheet: msg.sheet, version: complete.version };
+      this.send(client, complete.frame);
     });
     socket.on('close', () => this.clients.delete(client));
     socket.on('error', () => this.clients.delete(client));
@@ -101,22 +113,35 @@ export class LiveHub {
     return false;
   }
 
+  /** The complete update of a sheet, serialised once per version however many pages ask. */
+  private completeFrame(sheet: string): { version: number; frame: Buffer } | null {
+    const update = this.store.complete(sheet);
+    if (!update) return null;
+    const cached = this.completeFrames.get(sheet);
+    if (cached?.version === update.version) return cached;
+    const made = { version: update.version, frame: encode(update) };
+    this.completeFrames.set(sheet, made);
+    return made;
+  }
+
   private sendUpdate(update: SheetUpdate): void {
-    let complete: SheetUpdate | null = null;
+    let relative: Buffer | null = null;
+    let complete: Buffer | null = null;
     for (const client of this.clients) {
       const follows = client.follows;
       if (follows?.target !== 'sheet' || follows.sheet !== update.sheet) continue;
       // A client that missed a version (it joined mid-way) gets the complete update.
-      const message = follows.version === update.base ? update : (complete ??= this.store.complete(update.sheet));
-      if (!message) continue;
+      const frame = follows.version === update.base ? (relative ??= encode(update)) : (complete ??= this.completeFrame(update.sheet)?.frame ?? null);
+      if (!frame) continue;
       follows.version = update.version;
-      this.send(client, message);
+      this.send(client, frame);
     }
   }
 
   private sendToFollowers(sheet: string, message: ServerMessage): void {
+    let frame: Buffer | null = null;
     for (const client of this.clients) {
-      if (client.follows?.target === 'sheet' && client.follows.sheet === sheet) this.send(client, message);
+      if (client.follows?.target === 'sheet' && client.follows.sheet === sheet) this.send(client, (frame ??= encode(message)));
     }
   }
 
@@ -124,17 +149,26 @@ export class LiveHub {
     if (this.indexTimer) return;
     this.indexTimer = setTimeout(() => {
       this.indexTimer = null;
-      let json: string | null = null;
+      let frame: Buffer | null = null;
       for (const client of this.clients) {
         if (client.follows?.target !== 'index') continue;
-        json ??= JSON.stringify(this.store.indexMessage() satisfies ServerMessage);
-        if (client.socket.readyState === WebSocket.OPEN) client.socket.send(json);
+        this.send(client, (frame ??= encode(this.store.indexMessage())));
       }
     }, this.options.indexThrottleMs);
   }
 
-  private send(client: Client, message: ServerMessage): void {
-    if (client.socket.readyState === WebSocket.OPEN) client.socket.send(JSON.stringify(message));
+  /** Sends a frame (text, the same bytes for every client), or drops a client that leaves its frames unread. */
+  private send(client: Client, frame: Buffer): void {
+    const socket = client.socket;
+    if (socket.readyState !== WebSocket.OPEN) return;
+    if (socket.bufferedAmount + frame.length > this.options.maxQueuedBytes && socket.bufferedAmount > 0) {
+      this.clients.delete(client);
+      socket.close(NOT_READING, 'not reading');
+      // A peer that does not read will not read the close frame either.
+      setTimeout(() => socket.terminate(), 1000).unref();
+      return;
+    }
+    socket.send(frame, { binary: false });
   }
 
   private beat(): void {
@@ -148,6 +182,10 @@ export class LiveHub {
       client.socket.ping();
     }
   }
+}
+
+function encode(message: ServerMessage): Buffer {
+  return Buffer.from(JSON.stringify(message));
 }
 
 function refuse(socket: Duplex, status: 403 | 404, message: string): void {

@@ -4,26 +4,29 @@
 // runner (the sandbox), one sheet at a time (queue.ts). The store reads
 // sheets; it never writes them.
 import { EventEmitter } from 'node:events';
-import { readFileSync } from 'node:fs';
+import { readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
-import type { RunOptions, SheetReport } from '../pipeline/index.js';
+import { typesetProgress, type RunOptions, type SheetReport } from '../pipeline/index.js';
 import { recordData, recordPage } from '../pipeline/record.js';
-import { isSheetFile } from '../read/sheet-files.js';
+import { isSheetFile, sheetTooLarge } from '../read/sheet-files.js';
 import { DependencyMap } from './deps.js';
 import { footHtml, indexRowsHtml, noticeText, recordUrl, sheetUrl } from './pages.js';
 import type { IndexEntry, PartUpdate, SheetCondition, SheetState, SheetUpdate } from './protocol.js';
 import { EvaluationQueue } from './queue.js';
-import { renamedFrom, renamedTo } from './renames.js';
+import { MOVE_WINDOW_MS, renamedFrom, renamedTo } from './renames.js';
 import { resolveSheetFileSync, SheetPathError } from './security.js';
 import { changeOfParts, type HashedPart } from './updates.js';
 import type { FileEvent } from './watch.js';
 
 /** What the store needs from the sandbox; tests may pass a stand-in. */
 export interface SheetRunner {
-  run(text: string, opts: RunOptions): Promise<SheetReport>;
+  /** `lane` picks one of the runner's evaluators (0 … lanes − 1). */
+  run(text: string, opts: RunOptions, lane?: number): Promise<SheetReport>;
   close(): Promise<void>;
   /** Starts the evaluator ahead of the first sheet, where that helps. */
   warm?(): Promise<void>;
+  /** Evaluators that work side by side (default 1): that many sheets are evaluated at once. */
+  readonly lanes?: number;
 }
 
 interface SheetRecord {
@@ -50,6 +53,8 @@ interface SheetRecord {
   resultFile: string | null;
   /** The last read found the sheet empty, and a second look is due. */
   emptyOnce: boolean;
+  /** Statements the last run left untypeset (its time ran out), and the text it ran on. */
+  untypeset: { count: number; text: string } | null;
   waiters: (() => void)[];
 }
 
@@ -58,7 +63,12 @@ export interface StoreEvents {
   sheet: [update: SheetUpdate];
   busy: [sheet: string];
   index: [];
+  /** A deleted sheet is no longer kept (no page follows it). */
+  forgotten: [sheet: string];
 }
+
+/** How often deleted sheets that no page follows any more are let go. */
+const FORGET_GONE_MS = 5000;
 
 /** How long an emptied sheet waits for the rest of its save before it is shown empty. */
 const EMPTY_RECHECK_MS = 25;
@@ -70,6 +80,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
   private closed = false;
   /** Set by the live layer: sheets with a page open are evaluated first. */
   isFollowed: (sheet: string) => boolean = () => false;
+  private readonly sweeper: NodeJS.Timeout;
 
   constructor(
     private readonly realRoot: string,
@@ -77,9 +88,25 @@ export class SheetStore extends EventEmitter<StoreEvents> {
   ) {
     super();
     this.queue = new EvaluationQueue(
-      (sheet) => this.evaluate(sheet),
+      (sheet, lane) => this.evaluate(sheet, lane),
       (sheet) => this.isFollowed(sheet),
+      runner.lanes ?? 1,
     );
+    this.sweeper = setInterval(() => this.forgetGone(), FORGET_GONE_MS);
+    this.sweeper.unref();
+  }
+
+  /**
+   * A deleted sheet is kept while a page shows it (that page was told, and
+   * keeps its content); after that, and past the time a rename takes, it is
+   * let go: its URL answers 404 and its memory is returned.
+   */
+  forgetGone(now = Date.now()): void {
+    for (const [sheet, record] of this.records) {
+      if (!record.gone || now - record.goneAt < MOVE_WINDOW_MS || this.isFollowed(sheet)) continue;
+      this.records.delete(sheet);
+      this.emit('forgotten', sheet);
+    }
   }
 
   /** Registers the sheets found by the first scan and queues their evaluation. */
@@ -182,6 +209,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
   /** Waits for the evaluation in progress, if any, and stops taking work. */
   async close(): Promise<void> {
     this.closed = true;
+    clearInterval(this.sweeper);
     await this.queue.close();
     for (const record of this.records.values()) record.waiters.splice(0).forEach((w) => w());
   }
@@ -209,6 +237,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
         resultText: null,
         resultFile: null,
         emptyOnce: false,
+        untypeset: null,
         waiters: [],
       };
       this.records.set(sheet, record);
@@ -229,7 +258,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     this.queue.add(sheet);
   }
 
-  private async evaluate(sheet: string): Promise<void> {
+  private async evaluate(sheet: string, lane = 0): Promise<void> {
     const record = this.records.get(sheet);
     if (!record || record.gone) return;
     let text: string;
@@ -237,6 +266,11 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     try {
       // Synchronous on purpose: sheets are small local text files (see resolveSheetFileSync).
       file = resolveSheetFileSync(this.realRoot, sheet);
+      const tooLarge = sheetTooLarge(statSync(file).size);
+      if (tooLarge) {
+        this.fail(record, tooLarge);
+        return;
+      }
       text = readFileSync(file, 'utf8');
     } catch (error) {
       if (error instanceof SheetPathError && error.code === 'outside-folder') {
@@ -263,7 +297,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     this.emit('index');
     let result: SheetReport;
     try {
-      result = await this.runner.run(text, { path: file, root: this.realRoot });
+      result = await this.runner.run(text, { path: file, root: this.realRoot }, lane);
     } catch (error) {
       record.lastText = text;
       this.fail(record, `Evaluation failed: ${describe(error)}`);
@@ -276,6 +310,21 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     this.deps.setReads(sheet, result.reads);
     this.accept(record, result);
     this.detectMoveTo(record);
+    this.continueTypesetting(record, text, result.untypeset);
+  }
+
+  /**
+   * A run that ran out of time while typesetting showed the rest as source
+   * text; the next run of the same text reuses what was typeset and goes on.
+   * Run again while each run typesets a good share of what is left (a sheet
+   * too large to typeset in any run stops after one), behind whatever else waits.
+   */
+  private continueTypesetting(record: SheetRecord, text: string, untypeset: number): void {
+    const before = record.untypeset;
+    record.untypeset = untypeset > 0 ? { count: untypeset, text } : null;
+    if (untypeset === 0) return;
+    if (before && before.text === text && !typesetProgress(before.count, untypeset)) return;
+    this.schedule(record.path);
   }
 
   private accept(record: SheetRecord, result: SheetReport): void {

@@ -15,13 +15,38 @@ export function isDimensionless(d: Dims): boolean {
   return dimsEqual(d, DIMENSIONLESS);
 }
 
+// Every result is one shared array per dimension: a list of 100,000 speeds
+// then holds one dimension vector, not 100,000 copies of it (they were most of
+// a list's memory).
+const interned = new Map<number | string, Dims>();
+
+function intern(d: number[]): Dims {
+  let key: number | string = 0;
+  for (let i = 0; i < 7; i++) {
+    const x = d[i]!;
+    if (!Number.isInteger(x) || x < -15 || x > 15) {
+      key = d.join(',');
+      break;
+    }
+    key = (key as number) * 32 + x + 16;
+  }
+  const hit = interned.get(key);
+  if (hit) return hit;
+  const frozen = Object.freeze(d.slice()) as unknown as Dims;
+  if (interned.size < 10_000) interned.set(key, frozen);
+  return frozen;
+}
+
 export function dimsMul(a: Dims, b: Dims, sign = 1): Dims {
-  return a.map((x, i) => x + sign * b[i]!) as unknown as Dims;
+  if (isDimensionless(b)) return a;
+  if (sign === 1 && isDimensionless(a)) return b;
+  return intern(a.map((x, i) => x + sign * b[i]!));
 }
 
 export function dimsPow(a: Dims, n: number): Dims {
+  if (n === 1 || isDimensionless(a)) return a;
   // Round to avoid 1.5000000000000002 from fractional powers such as sqrt.
-  return a.map((x) => Math.round(x * n * 1e9) / 1e9) as unknown as Dims;
+  return intern(a.map((x) => Math.round(x * n * 1e9) / 1e9));
 }
 
 /** SI base-unit text, e.g. "kg m^-1 s^-2" written as "kg/(m s^2)". */

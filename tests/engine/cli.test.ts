@@ -1,6 +1,6 @@
 // The command line: eval --json shape, check's file:line output and exit
 // codes (0 ok, 1 failed checks or errors, 2 bad usage), render -o.
-import { execFile } from 'node:child_process';
+import { execFile, spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -47,6 +47,23 @@ describe('wakesheet CLI', () => {
     const html = readFileSync(out, 'utf8');
     expect(html).toContain('data:font/woff2;base64,');
     expect(html).not.toMatch(/<link[^>]+stylesheet|https?:\/\/cdn/);
+  });
+
+  it('nothing printed is lost to a pipe that reads slowly (issue 17): all the bytes, and the exit code', async () => {
+    // Long enough to fill a pipe's buffer many times over (it holds 64 KiB).
+    const lines = Array.from({ length: 200 }, (_, i) => `x_${i} = linspace(0, ${i + 1}, 30)`);
+    lines.push('check x_0 > 2 "a failing check, so the exit code is 1"');
+    const file = join(dir, 'long.md');
+    writeFileSync(file, '```basis\n' + lines.join('\n') + '\n```\n');
+    const direct = await run(['eval', file, '--json']);
+    expect(direct.code).toBe(1);
+    expect(Buffer.byteLength(direct.stdout)).toBeGreaterThan(300_000);
+    const piped = spawnSync('bash', ['-c', `node "${BIN}" eval "${file}" --json | (sleep 1; wc -c); exit \${PIPESTATUS[0]}`], { encoding: 'utf8' });
+    expect(Number(piped.stdout.trim())).toBe(Buffer.byteLength(direct.stdout));
+    expect(piped.status).toBe(1);
+    // A reader that stops early ends the command quietly.
+    const head = spawnSync('bash', ['-c', `node "${BIN}" eval "${file}" --json | head -c 10 >/dev/null; echo \${PIPESTATUS[0]}`], { encoding: 'utf8' });
+    expect(head.stderr).toBe('');
   });
 
   it('exits 2 on bad usage and prints help on --help', async () => {

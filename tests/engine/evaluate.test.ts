@@ -2,7 +2,7 @@
 // cache (issue 2). Values are checked against hand arithmetic.
 import { describe, expect, it } from 'vitest';
 import { SheetPipeline } from '../../server/pipeline/index.js';
-import { sheet, si } from './helpers.js';
+import { decodeReferences, sheet, si } from './helpers.js';
 
 describe('dependency order', () => {
   it('uses a name above its definition and keeps the file order in the output', async () => {
@@ -79,7 +79,7 @@ describe('last good values while a sheet has errors', () => {
     const session = new SheetPipeline();
     session.run(text('12 m/s'));
     const broken = session.run(text('12 m/s + 1 Pa'));
-    const html = broken.parts.map((p) => p.html).join('');
+    const html = decodeReferences(broken.parts.map((p) => p.html).join(''));
     expect(broken.errors.map((e) => [e.line, e.message])).toEqual([[6, 'cannot add m/s to Pa']]);
     // Re = 12 × 0.3 / 1.5e-5 = 2.4e5, computed before the break.
     const re = statement(html, 'Re');

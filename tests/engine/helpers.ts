@@ -12,3 +12,8 @@ export function si(r: SheetResult, name: string): number {
   if (!v || v.si === null) throw new Error(`${name} has no SI value: ${JSON.stringify(r.errors)}`);
   return v.si;
 }
+
+/** Html with its character references (&#x3bd; and the like) read as the characters they stand for. */
+export function decodeReferences(html: string): string {
+  return html.replace(/&#x([0-9a-f]+);/gi, (_, hex: string) => String.fromCodePoint(parseInt(hex, 16)));
+}

@@ -20,7 +20,7 @@ describe('sandbox', () => {
   });
 
   it('stops an endless computation at the time limit, then evaluates the next sheet', async () => {
-    const sandbox = new Sandbox({ timeoutMs: 300, limits: { maxSteps: 1e12 } });
+    const sandbox = new Sandbox({ timeoutMs: 300, limits: { maxSteps: 1e12, maxHeldItems: 1e12 } });
     sandboxes.push(sandbox);
     // The interpreter stops itself at 300 ms; on a loaded machine the sandbox's
     // backstop may kill the child first. Either way the caller gets a time error.
@@ -42,7 +42,8 @@ describe('sandbox', () => {
   });
 
   it('survives a memory bomb: the child dies, the caller gets an error, the next sheet works', async () => {
-    const sandbox = new Sandbox({ heapMb: 96, timeoutMs: 20000, limits: { maxSteps: 1e12 } });
+    // With the sheet's own limits lifted, only the heap cap is left to stop it.
+    const sandbox = new Sandbox({ heapMb: 96, timeoutMs: 20000, limits: { maxSteps: 1e12, maxHeldItems: 1e12 } });
     sandboxes.push(sandbox);
     const err = await sandbox.run(bomb, {}).then(
       () => null,

@@ -176,11 +176,12 @@ describe('WebSocket', () => {
 
   it('closes on a malformed message or an unknown sheet', async () => {
     const server = await serve({ 'wing.md': 'w' });
-    for (const message of ['not json', JSON.stringify({ type: 'follow', target: 'sheet', sheet: '../x.md' })]) {
+    // An unknown sheet gets its own code, on which the page stops reconnecting.
+    for (const [message, code] of [['not json', 1008], [JSON.stringify({ type: 'follow', target: 'sheet', sheet: '../x.md' }), 4404]] as const) {
       const client = await connect(server.url);
-      const closed = new Promise<number>((resolve) => client.socket.on('close', (code) => resolve(code)));
+      const closed = new Promise<number>((resolve) => client.socket.on('close', (c) => resolve(c)));
       client.socket.send(message);
-      expect(await closed).toBe(1008);
+      expect(await closed).toBe(code);
     }
   });
 
