@@ -1,27 +1,38 @@
 // `wakesheet check [DIR]`: every sheet under DIR, one line per failure.
 import { existsSync, statSync } from 'node:fs';
-import { relative, resolve } from 'node:path';
+import { dirname, relative, resolve } from 'node:path';
 import { countText } from '../core/index.js';
 import { findSheets } from '../read/sheet-files.js';
-import { colour, parseArgs, runOne, Sandbox, UsageError } from './shared.js';
+import { colour, overridesOf, parseArgs, runOne, Sandbox, sheetArgument, UsageError } from './shared.js';
 
-export const CHECK_HELP = `wakesheet check [DIR]
+export const CHECK_HELP = `wakesheet check [DIR | SHEET.md] [--set NAME=VALUE …]
 
-Evaluates every sheet under DIR (default: the current folder). Prints one line
-per failed check or error as file:line: message, and exits 1 if there is any.`;
+Evaluates every sheet under DIR (default: the current folder), or one sheet.
+Prints one line per failed check or error as file:line: message, and exits 1
+if there is any. --set U_inf=20m/s (repeatable) replaces an input for this run
+in every sheet that defines it; a name no sheet defines is an error.`;
 
 export async function checkCommand(argv: string[]): Promise<number> {
-  const { positional } = parseArgs(argv, { flags: {} });
-  if (positional.length > 1) throw new UsageError('check takes at most one folder');
-  const dir = resolve(positional[0] ?? '.');
-  if (!existsSync(dir) || !statSync(dir).isDirectory()) throw new UsageError(`not a folder: ${positional[0]}`);
+  const parsed = parseArgs(argv, { flags: { set: 'repeat' } });
+  const { positional } = parsed;
+  const overrides = overridesOf(parsed);
+  if (positional.length > 1) throw new UsageError('check takes at most one folder or sheet');
+  const target = resolve(positional[0] ?? '.');
+  if (!existsSync(target)) throw new UsageError(`no such folder or sheet: ${positional[0]}`);
+  const one = !statSync(target).isDirectory();
+  if (one) sheetArgument(target, 'check');
+  const dir = one ? dirname(target) : target;
+  const files = one ? [target] : findSheets(dir);
   const sandbox = new Sandbox();
   let bad = 0;
   let sheets = 0;
+  const taken = new Set<string>();
   try {
-    for (const file of findSheets(dir)) {
+    for (const file of files) {
       sheets++;
-      const { result: r } = await runOne(sandbox, file, dir);
+      const extra = overrides ? { overrides, overridesElsewhere: !one } : {};
+      const { result: r } = await runOne(sandbox, file, dir, undefined, extra);
+      for (const name of r.overridesMatched) taken.add(name);
       const rel = relative(process.cwd(), file) || file;
       for (const e of r.errors) {
         bad++;
@@ -35,6 +46,13 @@ export async function checkCommand(argv: string[]): Promise<number> {
   } finally {
     await sandbox.close();
   }
+  if (!one) {
+    for (const name of Object.keys(overrides ?? {}).filter((n) => !taken.has(n))) {
+      bad++;
+      process.stdout.write(`${colour(31, 'error')} --set ${name}: no sheet under ${positional[0] ?? '.'} has an input \`${name}\`\n`);
+    }
+  }
+  if (overrides) process.stdout.write(`with ${Object.entries(overrides).map(([k, v]) => `${k} = ${v}`).join(', ')} set for this run\n`);
   process.stdout.write(`${countText(sheets, 'sheet')}, ${bad === 0 ? colour(32, 'all checks pass') : colour(31, countText(bad, 'problem'))}\n`);
   return bad ? 1 : 0;
 }

@@ -1,31 +1,35 @@
 // `wakesheet eval SHEET.md [--json] [--root DIR]`: values, checks and errors.
 import { dirname, resolve } from 'node:path';
 import type { ValueJson } from '../pipeline/index.js';
-import { colour, failing, parseArgs, runOne, Sandbox, sheetArgument, UsageError, type FlagSpec } from './shared.js';
+import { colour, failing, overridesOf, parseArgs, runOne, Sandbox, sheetArgument, UsageError, type FlagSpec } from './shared.js';
 
-export const EVAL_HELP = `wakesheet eval SHEET.md [--json] [--root DIR]
+export const EVAL_HELP = `wakesheet eval SHEET.md [--json] [--root DIR] [--set NAME=VALUE …]
 
 Evaluates SHEET.md in the sandbox and prints every value, check and error.
 With --json prints {"values": {...}, "checks": [...], "errors": [...]} with SI
 values (temperatures in kelvin, percentages as fractions); otherwise one line
 per value, with the fields of records indented below them.
-Data files are readable inside the sheet's folder, or inside --root DIR.`;
+Data files are readable inside the sheet's folder, or inside --root DIR.
+--set U_inf=20m/s (repeatable) replaces an input for this run only, here or in
+a sheet this one uses; a name that is not an input is an error.`;
 
-const FLAGS: FlagSpec = { flags: { json: 'switch', root: 'value' } };
+const FLAGS: FlagSpec = { flags: { json: 'switch', root: 'value', set: 'repeat' } };
 
 export async function evalCommand(argv: string[]): Promise<number> {
-  const { positional, flags } = parseArgs(argv, FLAGS);
+  const parsed = parseArgs(argv, FLAGS);
+  const { positional, flags } = parsed;
   if (positional.length !== 1) throw new UsageError('eval takes one sheet');
+  const overrides = overridesOf(parsed);
   const file = sheetArgument(positional[0]!, 'eval');
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
   const sandbox = new Sandbox();
   try {
-    const { result: r } = await runOne(sandbox, file, root);
+    const { result: r } = await runOne(sandbox, file, root, undefined, overrides ? { overrides } : {});
     if (flags.has('json')) {
       const errors = r.errors.map((e) => ({ line: e.line, column: e.column, message: e.message, code: e.code }));
-      process.stdout.write(JSON.stringify({ values: r.values, checks: r.checks, errors }, null, 2) + '\n');
+      process.stdout.write(JSON.stringify({ values: r.values, checks: r.checks, errors, ...(r.overrides.length ? { overrides: r.overrides } : {}) }, null, 2) + '\n');
     } else {
-      const lines: string[] = [];
+      const lines: string[] = r.overrides.map((o) => `${colour(33, 'set')} ${o.name} = ${o.now} (${o.sheet || file} says ${o.was})`);
       for (const [name, v] of Object.entries(r.values)) valueLines(name, v, '', lines);
       for (const c of r.checks) lines.push(`${c.passed ? colour(32, 'pass') : colour(31, 'FAIL')} line ${c.line}: ${c.text}`);
       for (const e of r.errors) lines.push(`${colour(31, 'error')} ${file}:${e.line}:${e.column}: ${e.message}`);

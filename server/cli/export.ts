@@ -3,32 +3,35 @@
 // solver's own set-up files.
 import { dirname, resolve } from 'node:path';
 import type { ValueJson } from '../pipeline/index.js';
-import { failing, parseArgs, runOne, Sandbox, sheetArgument, UsageError, writeOutput, type FlagSpec } from './shared.js';
+import { failing, overridesOf, parseArgs, runOne, Sandbox, sheetArgument, UsageError, writeOutput, type FlagSpec } from './shared.js';
 
-export const EXPORT_HELP = `wakesheet export SHEET.md --json|--csv [-o FILE] [--root DIR]
+export const EXPORT_HELP = `wakesheet export SHEET.md --json|--csv [-o FILE] [--root DIR] [--set NAME=VALUE …]
 
 Writes every value of the sheet with its SI value, SI unit, the text the sheet
 shows and its warnings. --json gives {"values": {...}} with records, lists and
 tables nested; --csv gives one row per number: name, si, unit, display,
 warnings (records as name.field, lists as name[1], tables as name[1].column).
-Without -o the export goes to standard output.`;
+Without -o the export goes to standard output. --set (repeatable) replaces an
+input for this run; the JSON then lists the inputs set.`;
 
-const FLAGS: FlagSpec = { flags: { json: 'switch', csv: 'switch', output: 'value', root: 'value' }, short: { o: 'output' } };
+const FLAGS: FlagSpec = { flags: { json: 'switch', csv: 'switch', output: 'value', root: 'value', set: 'repeat' }, short: { o: 'output' } };
 
 export async function exportCommand(argv: string[]): Promise<number> {
-  const { positional, flags } = parseArgs(argv, FLAGS);
+  const parsed = parseArgs(argv, FLAGS);
+  const { positional, flags } = parsed;
+  const overrides = overridesOf(parsed);
   if (positional.length !== 1) throw new UsageError('export takes one sheet');
   if (flags.has('json') === flags.has('csv')) throw new UsageError('export needs one of --json or --csv');
   const file = sheetArgument(positional[0]!, 'export');
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
   const sandbox = new Sandbox();
   try {
-    const { result, failure } = await runOne(sandbox, file, root);
+    const { result, failure } = await runOne(sandbox, file, root, undefined, overrides ? { overrides } : {});
     if (failure) {
       process.stderr.write(`${file}: ${failure}\n`);
       return 1;
     }
-    const text = flags.has('json') ? JSON.stringify({ values: result.values, errors: result.errors }, null, 2) + '\n' : csvOf(result.values);
+    const text = flags.has('json') ? JSON.stringify({ values: result.values, errors: result.errors, ...(result.overrides.length ? { overrides: result.overrides } : {}) }, null, 2) + '\n' : csvOf(result.values);
     const out = flags.get('output') as string | undefined;
     if (out) writeOutput(out, text);
     else process.stdout.write(text);

@@ -4,27 +4,30 @@
 import { existsSync, readFileSync, renameSync, statSync, unlinkSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { nearestWord } from '../core/index.js';
-import { emptyReport, type SheetResult } from '../pipeline/index.js';
+import { emptyReport, type RunOptions, type SheetResult } from '../pipeline/index.js';
 import { isSheetFile, sheetTooLarge } from '../read/sheet-files.js';
 import { Sandbox, SandboxError } from '../sandbox/sandbox.js';
 
 /** Bad arguments: one line, exit 2. */
 export class UsageError extends Error {}
 
-/** A command's flags without their dashes: a switch, or a flag that takes a value. Short forms map to long ones. */
+/** A command's flags without their dashes: a switch, a flag that takes a value, or one that may be given again (each value kept). Short forms map to long ones. */
 export interface FlagSpec {
-  flags: Record<string, 'switch' | 'value'>;
+  flags: Record<string, 'switch' | 'value' | 'repeat'>;
   short?: Record<string, string>;
 }
 
 export interface Parsed {
   positional: string[];
   flags: Map<string, string | true>;
+  /** The values of each repeatable flag, in order. */
+  repeated: Map<string, string[]>;
 }
 
 export function parseArgs(argv: string[], spec: FlagSpec): Parsed {
   const positional: string[] = [];
   const flags = new Map<string, string | true>();
+  const repeated = new Map<string, string[]>();
   const known = Object.keys(spec.flags);
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!;
@@ -46,9 +49,30 @@ export function parseArgs(argv: string[], spec: FlagSpec): Parsed {
     }
     const v = m[3] ?? argv[++i];
     if (v === undefined || v === '') throw new UsageError(`${a} needs a value`);
-    flags.set(name, v);
+    if (kind === 'repeat') repeated.set(name, [...(repeated.get(name) ?? []), v]);
+    else flags.set(name, v);
   }
-  return { positional, flags };
+  return { positional, flags, repeated };
+}
+
+/**
+ * The inputs to replace, from `--set NAME=VALUE` (repeatable): name → value
+ * as worksheet text. Whether the name is an input, and the value a value, the
+ * sheet says; here only the form is checked.
+ */
+export function overridesOf(parsed: Parsed): Record<string, string> | undefined {
+  const sets = parsed.repeated.get('set');
+  if (!sets) return undefined;
+  const out: Record<string, string> = {};
+  for (const s of sets) {
+    const m = /^\s*([A-Za-z_\u0370-\u03ff][A-Za-z0-9_\u0370-\u03ff]*)\s*=(.*)$/.exec(s);
+    if (!m) throw new UsageError(`--set ${s}: write it as NAME=VALUE, e.g. --set U_inf=20m/s`);
+    const [, name, value] = m as unknown as [string, string, string];
+    if (value.trim() === '') throw new UsageError(`--set ${name}= needs a value after the "="`);
+    if (Object.hasOwn(out, name)) throw new UsageError(`--set ${name} is given twice (${out[name]} and ${value.trim()}); give it once`);
+    out[name] = value.trim();
+  }
+  return out;
 }
 
 export function colour(code: number, s: string): string {
@@ -72,7 +96,7 @@ export interface OneRun {
 }
 
 /** Runs one sheet; a sandbox failure (timeout, memory, crash) comes back as the sheet's one error. */
-export async function runOne(sandbox: Sandbox, file: string, root: string, given?: string): Promise<OneRun> {
+export async function runOne(sandbox: Sandbox, file: string, root: string, given?: string, extra: Omit<RunOptions, 'path' | 'root'> = {}): Promise<OneRun> {
   let text = given;
   if (text === undefined) {
     const tooLarge = sheetTooLarge(statSync(file).size);
@@ -80,7 +104,7 @@ export async function runOne(sandbox: Sandbox, file: string, root: string, given
     text = readFileSync(file, 'utf8');
   }
   try {
-    return { result: await sandbox.run(text, { path: resolve(file), root }), text };
+    return { result: await sandbox.run(text, { ...extra, path: resolve(file), root }), text };
   } catch (e) {
     if (!(e instanceof SandboxError)) throw e;
     return failedRun(e.message, text);

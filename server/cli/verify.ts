@@ -34,7 +34,10 @@ export async function verifyCommand(argv: string[]): Promise<number> {
   const sandbox = new Sandbox();
   let checked = 0;
   try {
-    const { result, failure } = await runOne(sandbox, join(root, data.sheet.path), root, data.sources[0]!.text);
+    // The run is of the recorded texts, the used sheets' too, with the inputs that were set then.
+    const sources = Object.fromEntries(data.sources.slice(1).map((x) => [x.path, x.text]));
+    const overrides = data.overrides.length ? Object.fromEntries(data.overrides.map((o) => [o.name, o.now])) : undefined;
+    const { result, failure } = await runOne(sandbox, join(root, data.sheet.path), root, data.sources[0]!.text, { sources, ...(overrides ? { overrides } : {}) });
     if (failure) differences.push(`the sheet could not be run again: ${failure}`);
     else {
       for (const [name, was] of Object.entries(data.values)) {

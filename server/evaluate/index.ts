@@ -5,3 +5,4 @@ export { DEFAULT_LIMITS, type Limits } from './limits.js';
 export { CONSTANTS } from './scope.js';
 export { sameItems } from './memo.js';
 export { namesUsed } from './graph.js';
+export { literalValue } from './literal-value.js';

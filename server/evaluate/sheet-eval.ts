@@ -41,6 +41,8 @@ export interface EvalOptions {
   cache?: EvalCache;
   /** Names whose definition line could not be parsed, with that line: their users are blocked. */
   failedNames?: ReadonlyMap<string, number>;
+  /** Names brought in from other sheets (`use`), read-only, with the line of the use and the sheet they come from. */
+  imported?: ReadonlyMap<string, { value: Value; line: number; from: string }>;
   /** Inline `=expr` values of the prose, evaluated after the statements. */
   inline?: readonly InlineExpr[];
   /** Last good values of names that fail now: inline values fall back to them, marked stale. */
@@ -82,8 +84,17 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   const budget = new Budget(opts.limits ?? DEFAULT_LIMITS);
   const results = statements.map<StatementResult>((stmt) => ({ stmt, warnings: [], uses: usesOf(stmt), fresh: false }));
   const defs = new Map<string, StatementResult>();
+  const imported = opts.imported ?? new Map<string, { value: Value; line: number; from: string }>();
   for (const r of results) {
     if (r.stmt.type !== 'define') continue;
+    const from = imported.get(r.stmt.name);
+    if (from) {
+      r.error = {
+        ...diagnostic(new SheetError('redefined', `"${r.stmt.name}" comes from ${from.from} (used on line ${from.line}) and is read-only here; give this one another name`, r.stmt.nameSpan), r.stmt.line),
+        related: [from.line],
+      };
+      continue;
+    }
     const first = defs.get(r.stmt.name);
     if (first) {
       r.error = {
@@ -114,6 +125,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   const failed = new Map<string, string>(); // name → root cause name
   const broken = opts.failedNames ?? new Map<string, number>();
   for (const name of broken.keys()) if (!defs.has(name)) failed.set(name, name);
+  for (const [name, { value }] of imported) values.set(name, value);
   const reads = new Set<string>();
   let freshCount = 0;
 
@@ -126,7 +138,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       return;
     }
     for (const u of nameUsesOf(r.stmt)) {
-      if (defs.has(u.name) || CONSTANTS.has(u.name) || broken.has(u.name)) continue;
+      if (defs.has(u.name) || CONSTANTS.has(u.name) || broken.has(u.name) || imported.has(u.name)) continue;
       r.error = diagnostic(new SheetError('unknown-name', `\`${u.name}\` is not defined (line ${u.span.line})`, u.span), r.stmt.line);
       return;
     }
@@ -134,7 +146,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     if (blocked) {
       const root = failed.get(blocked)!;
       r.blockedBy = root;
-      const line = defs.get(root)?.stmt.line ?? broken.get(root);
+      const line = defs.get(root)?.stmt.line ?? broken.get(root) ?? imported.get(root)?.line;
       if (line !== undefined) r.blockedLine = line;
       return;
     }
@@ -195,6 +207,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     scope,
     plan: (changed, wanted) => planRerun(sweepOrder, checkStatements, usesOf, changed, values, { registry: opts.registry, budget, defaults: cache.defaults, readData: opts.readData }, wanted),
     defines: (name) => defs.has(name) && !late.has(name),
+    usedFrom: (name) => imported.get(name)?.from,
     checkLabel: (line) => {
       const c = checkStatements.find((x) => x.line === line);
       return c?.label ?? c?.source.replace(/^check\s+/, '') ?? '';

@@ -27,6 +27,8 @@ export interface SweepEnv {
   plan(changed: ReadonlySet<string>, wanted: ReadonlySet<string>): Rerun;
   /** The defined names of the sheet. */
   defines(name: string): boolean;
+  /** The sheet a name comes from through `use`, if it does. */
+  usedFrom(name: string): string | undefined;
   /** The label of a check, for what the sweep says of it. */
   checkLabel(line: number): string;
 }
@@ -87,6 +89,10 @@ export function evaluateSweep(expr: Expr, env: SweepEnv): TableValue {
 
 function readInput(e: CallExpr, nameExpr: Expr, valuesExpr: Expr, env: SweepEnv): Input {
   if (nameExpr.type !== 'name') throw new SheetError('bad-argument', `${e.callee}() sweeps a name defined on the sheet, such as U_inf, not an expression`, nameExpr.span);
+  const from = env.usedFrom(nameExpr.name);
+  if (from) {
+    throw new SheetError('bad-argument', `\`${nameExpr.name}\` comes from ${from}, and a sweep runs only this sheet again; define a name here from it (U = ${nameExpr.name}), use it downstream, and sweep that`, nameExpr.span);
+  }
   if (!env.defines(nameExpr.name)) throw new SheetError('unknown-name', `${e.callee}() can only sweep a name this sheet defines; \`${nameExpr.name}\` is not one`, nameExpr.span);
   const v = evaluate(valuesExpr, env.scope);
   const values = v.kind === 'list' ? v.items : [v];

@@ -4,6 +4,7 @@
 import { diagnostic, SheetError, type Diagnostic } from '../diagnostics.js';
 import type { Span, Statement } from './ast.js';
 import { parseStatement } from './parser.js';
+import { parseUse, type UseLine } from './use.js';
 
 export interface BrokenLine extends Diagnostic {
   /** The name the line defines, when its head `name =` can still be read. */
@@ -12,7 +13,7 @@ export interface BrokenLine extends Diagnostic {
   readonly source: string;
 }
 
-export type ParsedLine = Statement | BrokenLine;
+export type ParsedLine = Statement | BrokenLine | UseLine;
 
 const DEFINE_HEAD = /^\s*([A-Za-z_µμ\u0370-\u03ff][A-Za-z0-9_\u0370-\u03ff]*)\s*=(?!=)/;
 
@@ -21,7 +22,7 @@ const SHOWN_SOURCE_CHARS = 200;
 
 export function parseLine(text: string, line: number, col: number): ParsedLine | null {
   try {
-    return parseStatement(text, line, col);
+    return parseUse(text, line, col) ?? parseStatement(text, line, col);
   } catch (e) {
     const err = asSheetError(e, { line, col, end: col + text.length });
     const name = DEFINE_HEAD.exec(text.slice(0, SHOWN_SOURCE_CHARS))?.[1];
@@ -46,4 +47,12 @@ export function isStackOverflow(e: unknown): boolean {
 
 export function isStatement(item: ParsedLine): item is Statement {
   return 'type' in item;
+}
+
+export function isUse(item: ParsedLine): item is UseLine {
+  return 'kind' in item && item.kind === 'use';
+}
+
+export function isBroken(item: ParsedLine): item is BrokenLine {
+  return !isStatement(item) && !isUse(item);
 }

@@ -1,11 +1,11 @@
 // The pipeline for one sheet: read → parse → evaluate → render, then the
 // report. It holds each stage's caches from the last run, so a save
 // re-parses, re-evaluates and re-renders only what changed.
-import { basename, dirname, resolve } from 'node:path';
-import { createRegistry, type Registry, type Value } from '../core/index.js';
-import { diagnostic } from '../diagnostics.js';
+import { basename, dirname, relative, resolve, sep } from 'node:path';
+import { createRegistry, nearestWord, type Registry, type Value } from '../core/index.js';
+import { diagnostic, type Diagnostic } from '../diagnostics.js';
 import { DEFAULT_LIMITS, EvalCache, evaluateSheet, type InlineExpr, type Limits, type StatementResult } from '../evaluate/index.js';
-import { asSheetError, isStatement, parseExpression, parseLine, type BrokenLine, type ParsedLine, type Statement } from '../parse/index.js';
+import { asSheetError, isStatement, isUse, parseExpression, parseLine, type BrokenLine, type ParsedLine, type Statement, type UseLine } from '../parse/index.js';
 import { dataReader, projectPath } from '../read/data-files.js';
 import { loadImages, type ImageCache } from '../read/images.js';
 import { splitFrontMatter } from '../read/front-matter.js';
@@ -13,8 +13,10 @@ import { normaliseNewlines, resplitParts, splitParts, type SourcePart, type Spli
 import { readDisplayUnits } from '../render/display-units.js';
 import { setPreferredUnits } from '../render/numbers.js';
 import { inlineKey, PartRenderer } from '../render/parts.js';
+import { applyOverrides, type OverrideMemo } from './overrides.js';
 import { buildReport } from './report.js';
-import type { RunOptions, SheetReport } from './types.js';
+import { resolveUses, type UsedRun } from './uses.js';
+import type { Override, RunOptions, SheetReport } from './types.js';
 
 export interface PipelineOptions {
   registry?: Registry;
@@ -36,6 +38,11 @@ export class SheetPipeline {
   private last: { body: string; sheet: SplitSheet } | undefined;
   private readonly registry: Registry;
   private readonly limits: Limits;
+  /** A pipeline for each sheet this one uses, by absolute path, so theirs stay warm too. */
+  private readonly usedPipelines = new Map<string, SheetPipeline>();
+  private readonly overrideMemo: OverrideMemo = new WeakMap();
+  /** What the last run defined, for a sheet that uses this one. */
+  private lastRun: Omit<UsedRun, 'report'> = { values: new Map(), failed: new Set(), defined: new Set(), origins: new Map() };
 
   constructor(opts: PipelineOptions = {}) {
     this.registry = opts.registry ?? sharedRegistry();
@@ -58,19 +65,33 @@ export class SheetPipeline {
 
     // parse
     const blocks = this.parseBlocks(sheet.parts);
-    const statements: Statement[] = [];
+    const parsed: Statement[] = [];
     const broken: BrokenLine[] = [];
-    for (const items of blocks) for (const item of items) (isStatement(item) ? statements : broken).push(item as never);
-    const failedNames = new Map<string, number>();
-    for (const d of broken) if (d.name) failedNames.set(d.name, d.line);
+    const useLines: UseLine[] = [];
+    for (const items of blocks) for (const item of items) (isStatement(item) ? parsed : isUse(item) ? useLines : broken).push(item as never);
     const inline = this.parseInline(sheet.parts);
+    const sheetName = path ? relative(root, path).split(sep).join('/') : '';
+    const set = applyOverrides(parsed, opts.overrides, sheetName, this.overrideMemo, this.registry);
+    const statements = set.statements;
+
+    // the sheets it uses, each run by a pipeline of its own
+    const uses = resolveUses(useLines, { root, sheetDir, chain: opts.chain ?? (path ? [path] : []), opts, run: (abs, usedText, usedOpts) => this.runUsed(abs, usedText, usedOpts) });
+    const failedNames = new Map(uses.failedNames);
+    for (const d of broken) if (d.name) failedNames.set(d.name, d.line);
 
     // evaluate
     let reader: ((p: string) => string) | undefined;
     const readData = (p: string) => (reader ??= dataReader(root, sheetDir))(p);
     const fallback = this.lastGood;
-    const evaluation = evaluateSheet(statements, { registry: this.registry, limits: this.limits, readData, cache: this.cache, failedNames, inline, fallback });
+    const evaluation = evaluateSheet(statements, { registry: this.registry, limits: this.limits, readData, cache: this.cache, failedNames, imported: uses.imported, inline, fallback });
     this.lastGood = lastGoodValues(evaluation.results, failedNames.keys(), this.lastGood);
+    markOverridden(evaluation.results, set.applied);
+    const own = parsed.flatMap((x) => (x.type === 'define' ? [x.name] : []));
+    const origins = new Map(uses.origins);
+    for (const name of own) origins.set(name, path ?? '');
+    this.lastRun = { values: evaluation.values, failed: new Set([...failedNames.keys(), ...failedDefinitions(evaluation.results)]), defined: new Set([...uses.defined, ...own]), origins };
+    // Only the sheet run first knows every sheet below it: it says which names to set are nowhere.
+    const overrideErrors = [...set.errors, ...(opts.chain || opts.overridesElsewhere ? [] : unknownOverrides(opts.overrides, this.lastRun.defined))];
 
     const imageSources = sheet.parts.flatMap((p) => (p.kind === 'prose' ? p.images : []));
     const images = loadImages(root, sheetDir, imageSources, this.images);
@@ -88,6 +109,7 @@ export class SheetPipeline {
       results,
       inline: evaluation.inline,
       images,
+      uses: uses.views,
       view: { sig, values: evaluation.values, lastGood: this.lastGood },
       deadline,
       budgetMs: this.limits.timeoutMs,
@@ -103,14 +125,29 @@ export class SheetPipeline {
       frontMatterProblems,
       imageProblems,
       broken,
+      lineErrors: [...uses.errors, ...overrideErrors],
       evaluation,
       inline,
       parts,
       untypeset,
       sig,
-      reads: [...new Set([...evaluation.reads, ...imageSources.filter((i) => !/^[a-z][a-z0-9+.-]*:|^\/\//i.test(i.src)).map((i) => i.src)])].map((p) => projectPath(root, sheetDir, p)),
+      reads: [...new Set([...[...evaluation.reads, ...imageSources.filter((i) => !/^[a-z][a-z0-9+.-]*:|^\/\//i.test(i.src)).map((i) => i.src)].map((p) => projectPath(root, sheetDir, p)), ...uses.reads])],
+      usedSheets: uses.sources,
+      imported: uses.imported,
+      overrides: [...set.applied, ...uses.overrides],
+      overridesMatched: Object.keys(opts.overrides ?? {}).filter((n) => this.lastRun.defined.has(n)),
       elapsedMs: performance.now() - t0,
     });
+  }
+
+  private runUsed(abs: string, text: string, opts: RunOptions): UsedRun {
+    let pipeline = this.usedPipelines.get(abs);
+    if (!pipeline) {
+      pipeline = new SheetPipeline({ registry: this.registry, limits: this.limits });
+      this.usedPipelines.set(abs, pipeline);
+    }
+    const report = pipeline.run(text, opts);
+    return { report, ...pipeline.lastRun };
   }
 
   private parseBlocks(parts: readonly SourcePart[]): ParsedLine[][] {
@@ -174,6 +211,30 @@ function lastGoodValues(results: readonly StatementResult[], unparsed: Iterable<
     if (value) kept.set(r.stmt.name, value);
   }
   return kept;
+}
+
+function failedDefinitions(results: readonly StatementResult[]): string[] {
+  return results.flatMap((r) => (r.stmt.type === 'define' && (r.error || r.blockedBy || r.skipped) ? [r.stmt.name] : []));
+}
+
+/** A replaced input says so beside its value. */
+function markOverridden(results: StatementResult[], applied: readonly Override[]): void {
+  if (applied.length === 0) return;
+  const byName = new Map(applied.map((o) => [o.name, o]));
+  for (const r of results) {
+    const o = r.stmt.type === 'define' ? byName.get(r.stmt.name) : undefined;
+    if (o) r.warnings = [...r.warnings, `set for this run to ${o.now}; the sheet says ${o.was}`];
+  }
+}
+
+/** Names given to set that no sheet of the run defines. */
+function unknownOverrides(overrides: Readonly<Record<string, string>> | undefined, defined: ReadonlySet<string>): Diagnostic[] {
+  return Object.keys(overrides ?? {})
+    .filter((name) => !defined.has(name))
+    .map((name) => {
+      const near = nearestWord(name, [...defined]);
+      return { code: 'unknown-name' as const, line: 1, column: 1, message: `--set ${name}: no input \`${name}\` in this sheet or the sheets it uses${near ? `; did you mean ${near}?` : ''}` };
+    });
 }
 
 function sigfigs(s: string | undefined): number {

@@ -11,18 +11,11 @@ import { packageVersion } from '../read/paths.js';
 import { provenanceHtml } from '../render/provenance.js';
 import { standaloneCss } from '../render/assets.js';
 import { pageHtml, RECORD_POLICY } from '../render/page.js';
-import type { ArgumentJson, CheckJson, ErrorJson, InputJson, SheetReport, SheetSummary, ValueJson } from './types.js';
+import type { ArgumentJson, CheckJson, ErrorJson, InputJson, Override, SheetReport, SheetSummary, ValueJson } from './types.js';
 
 export const RECORD_FORMAT = 'wakesheet-record';
 export const RECORD_FORMAT_VERSION = 1;
 
-export interface Override {
-  name: string;
-  /** The value the sheet gives, as written there. */
-  was: string;
-  /** The value the run used instead. */
-  now: string;
-}
 
 export interface RecordData {
   format: typeof RECORD_FORMAT;
@@ -52,9 +45,6 @@ export interface RecordFacts {
   path: string;
   /** The project folder (absolute): data files are read inside it. */
   root: string;
-  /** Sheets the sheet uses, with their text (absolute paths). */
-  used?: Array<{ path: string; text: string }>;
-  overrides?: Override[];
   /** The time written, for tests; now by default. */
   now?: Date;
 }
@@ -67,7 +57,9 @@ export function sha256(data: string | Buffer): string {
 export function recordData(report: SheetReport, facts: RecordFacts): RecordData {
   const rel = (p: string) => relative(facts.root, p).split('\\').join('/');
   const bytes = dataBytesReader(facts.root, facts.root);
-  const dataFiles = report.reads.map((path) => {
+  // The sheets it uses are sources, kept verbatim below, not data files.
+  const used = new Set(report.usedSheets.map((u) => u.path));
+  const dataFiles = report.reads.filter((path) => !used.has(path)).map((path) => {
     try {
       const b = bytes(path);
       return { path, sha256: sha256(b), bytes: b.length };
@@ -76,7 +68,9 @@ export function recordData(report: SheetReport, facts: RecordFacts): RecordData 
       throw e;
     }
   });
-  const sources = [{ path: rel(facts.path), text: facts.source }, ...(facts.used ?? []).map((u) => ({ path: rel(u.path), text: u.text }))];
+  // The sheets it uses come with the report, project-relative; one reached two ways is kept once.
+  const sources = [{ path: rel(facts.path), text: facts.source }];
+  for (const u of report.usedSheets) if (!sources.some((x) => x.path === u.path)) sources.push(u);
   return {
     format: RECORD_FORMAT,
     formatVersion: RECORD_FORMAT_VERSION,
@@ -84,7 +78,7 @@ export function recordData(report: SheetReport, facts: RecordFacts): RecordData 
     writtenAt: (facts.now ?? new Date()).toISOString(),
     sheet: { path: rel(facts.path), root: facts.root },
     meta: report.meta,
-    overrides: facts.overrides ?? [],
+    overrides: report.overrides,
     sources: sources.map((s) => ({ ...s, sha256: sha256(s.text) })),
     dataFiles,
     summary: report.summary,

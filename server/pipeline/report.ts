@@ -6,7 +6,8 @@ import { isLiteral, literalArguments, literalText, type BrokenLine } from '../pa
 import { sheetHeaderHtml, summaryHtml, type SummaryItem } from '../render/page.js';
 import type { SheetPart } from '../render/parts.js';
 import { valueJson, type ValueJson } from '../render/value-json.js';
-import type { ArgumentJson, CheckJson, ErrorJson, InputJson, SheetReport } from './types.js';
+import type { ArgumentJson, CheckJson, ErrorJson, InputJson, Override, SheetReport } from './types.js';
+import type { Diagnostic } from '../diagnostics.js';
 
 export interface ReportInput {
   title: string;
@@ -16,6 +17,8 @@ export interface ReportInput {
   /** Images that could not be embedded. */
   imageProblems: readonly { line: number; message: string }[];
   broken: readonly BrokenLine[];
+  /** Errors found before evaluation on other lines: uses that failed, inputs that could not be set. */
+  lineErrors: readonly Diagnostic[];
   evaluation: SheetEvaluation;
   inline: readonly InlineExpr[];
   parts: SheetPart[];
@@ -24,6 +27,12 @@ export interface ReportInput {
   sig: number;
   /** Data files read, relative to the project root. */
   reads: string[];
+  /** The sheets it uses, with their texts. */
+  usedSheets: Array<{ path: string; text: string }>;
+  /** Values brought in from them, listed with the sheet's own values. */
+  imported: ReadonlyMap<string, { value: Value; from: string }>;
+  overrides: Override[];
+  overridesMatched: string[];
   elapsedMs: number;
 }
 
@@ -37,7 +46,7 @@ export function buildReport(input: ReportInput): SheetReport {
     problems.push({ line: problemLine, text: message, kind: 'error' });
   };
   for (const p of input.frontMatterProblems) error(p.line, 1, p.message, 'syntax');
-  for (const d of input.broken) error(d.line, d.column, d.message, d.code);
+  for (const d of [...input.broken, ...input.lineErrors]) error(d.line, d.column, d.message, d.code);
   for (const p of input.imageProblems) error(p.line, 1, p.message, 'data-file');
   let inputs = 0;
   let results = 0;
@@ -61,6 +70,7 @@ export function buildReport(input: ReportInput): SheetReport {
   errors.sort((a, b) => a.line - b.line || a.column - b.column);
   problems.sort((a, b) => a.line - b.line);
   const values: Record<string, ValueJson> = {};
+  for (const [name, { value, from }] of input.imported) values[name] = { ...valueJson(value, input.sig), from };
   const inputsList: InputJson[] = [];
   const args: ArgumentJson[] = [];
   for (const r of evaluation.results) {
@@ -85,7 +95,7 @@ export function buildReport(input: ReportInput): SheetReport {
   return {
     title: input.title,
     meta: input.meta,
-    headerHtml: sheetHeaderHtml(input.title, input.meta, caution),
+    headerHtml: sheetHeaderHtml(input.title, input.meta, caution, input.overrides),
     parts: input.parts,
     summaryHtml: summaryHtml(summary, problems, input.untypeset ? [untypesetNote(input.untypeset)] : []),
     summary,
@@ -99,6 +109,9 @@ export function buildReport(input: ReportInput): SheetReport {
     caution,
     freshStatements: evaluation.freshCount,
     untypeset: input.untypeset,
+    usedSheets: input.usedSheets,
+    overrides: input.overrides,
+    overridesMatched: input.overridesMatched,
   };
 }
 
@@ -148,6 +161,9 @@ export function emptyReport(fields: Partial<SheetReport> = {}): SheetReport {
     caution: false,
     freshStatements: 0,
     untypeset: 0,
+    usedSheets: [],
+    overrides: [],
+    overridesMatched: [],
     ...fields,
   };
 }

@@ -72,6 +72,12 @@ export interface SheetReport {
    * budget ran out while typesetting; a later run of the same text typesets more.
    */
   untypeset: number;
+  /** The sheets it uses, with their texts (project-relative paths). */
+  usedSheets: Array<{ path: string; text: string }>;
+  /** Inputs replaced for this run, here or in a used sheet. */
+  overrides: Override[];
+  /** The names asked to be set that this sheet or a sheet it uses defines (set, or refused with an error). */
+  overridesMatched: string[];
 }
 
 /** A report with its standalone page. */
@@ -85,4 +91,23 @@ export interface RunOptions {
   path?: string;
   /** Project folder: data files are readable only inside it. */
   root?: string;
+  /** Inputs replaced for this run (`--set U_inf=20m/s`): name → the value as worksheet text. */
+  overrides?: Record<string, string>;
+  /** A name to set that this sheet does not define is no error here (a check of a folder sets each name where it is defined). */
+  overridesElsewhere?: boolean;
+  /** Texts of used sheets by project-relative path, read instead of the files (a record being verified). */
+  sources?: Record<string, string>;
+  /** The sheets on the way to this one through `use` (absolute paths), to find circles. */
+  chain?: string[];
+}
+
+/** An input replaced for one run. */
+export interface Override {
+  name: string;
+  /** As the sheet writes it. */
+  was: string;
+  /** As it was given. */
+  now: string;
+  /** The sheet it is an input of (project-relative). */
+  sheet: string;
 }

@@ -38,8 +38,23 @@ export function headerHtml(title: string, meta: Record<string, string>): string 
 }
 
 /** The header above a sheet, with the planning caution when the sheet needs it. */
-export function sheetHeaderHtml(title: string, meta: Record<string, string>, caution: boolean): string {
-  return headerHtml(title, meta) + (caution ? cautionHtml() : '');
+/** An input replaced for one run, as the header lists it. */
+export interface ReplacedInput {
+  name: string;
+  was: string;
+  now: string;
+  sheet: string;
+}
+
+export function sheetHeaderHtml(title: string, meta: Record<string, string>, caution: boolean, replaced: readonly ReplacedInput[] = []): string {
+  return headerHtml(title, meta) + (caution ? cautionHtml() : '') + replacedHtml(replaced);
+}
+
+/** A run with inputs set from outside is not the sheet as written: the header says so first. */
+function replacedHtml(replaced: readonly ReplacedInput[]): string {
+  if (replaced.length === 0) return '';
+  const items = replaced.map((o) => `<li><code>${escapeHtml(o.name)}</code> = ${escapeHtml(o.now)} <span class="ws-replaced-was">(${escapeHtml(o.sheet || 'the sheet')} says ${escapeHtml(o.was)})</span></li>`).join('');
+  return `<aside class="ws-replaced" role="note"><p>This run does not use the sheet as written: ${replaced.length === 1 ? 'one input was' : `${replaced.length} inputs were`} set for it.</p><ul>${items}</ul></aside>`;
 }
 
 export const CAUTION =

@@ -5,10 +5,11 @@
 import type { Value } from '../core/index.js';
 import { sameItems, type InlineResult, type StatementResult } from '../evaluate/index.js';
 import type { BrokenLine, ParsedLine, Statement } from '../parse/index.js';
-import { isStackOverflow, isStatement } from '../parse/index.js';
+import { isStackOverflow, isStatement, isUse } from '../parse/index.js';
 import type { LoadedImage } from '../read/images.js';
 import { PLAIN_PROSE, type ImageSource, type InlineSource, type SplitSheet } from '../read/parts.js';
 import { inlineHtml } from './inline.js';
+import { useHtml, type UseView } from './use.js';
 import { displayKey } from './numbers.js';
 import { embedImages, inlineValueSpans, proseHtml } from './prose.js';
 import { compactHtml, escapeHtml } from './html.js';
@@ -35,6 +36,8 @@ export interface PartsInput {
   inline: ReadonlyMap<string, InlineResult>;
   /** The prose's images, embedded or refused. */
   images: ReadonlyMap<string, LoadedImage>;
+  /** Each `use` line by its file line: what it brought in, or why not. */
+  uses: ReadonlyMap<number, UseView>;
   view: SheetView;
   /**
    * The sheet's time budget ends here (Date.now() ms): statements and prose not
@@ -111,6 +114,7 @@ export class PartRenderer {
     const inputs: unknown[] = [];
     for (const item of items) {
       if (isStatement(item)) statementInputs(input.results.get(item.line)!, view, inputs);
+      else if (isUse(item)) useInputs(input.uses.get(item.line), inputs);
       else inputs.push(item.message, item.line, item.column, view.lastGood.get(item.name ?? ''));
     }
     const memo = this.parts.get(key);
@@ -123,7 +127,9 @@ export class PartRenderer {
       return compactHtml(`<div class="ws-block ws-untypeset" data-fence-line="${fenceLine}"><p class="ws-untypeset-note">${count === 1 ? 'This statement is' : `These ${count.toLocaleString('en')} statements are`} not typeset: ${escapeHtml(this.timeReason(input))}.</p><pre class="ws-plain-text">${escapeHtml(source)}</pre></div>`);
     }
     const cutBefore = this.cut;
-    const pieces = items.map((item) => (isStatement(item) ? this.statement(input.results.get(item.line)!, input) : compactHtml(brokenHtml(item, view))));
+    const pieces = items.map((item) =>
+      isStatement(item) ? this.statement(input.results.get(item.line)!, input) : compactHtml(isUse(item) ? useHtml(item.line, input.uses.get(item.line)!, view.sig) : brokenHtml(item, view)),
+    );
     const open = `<div class="ws-block" data-fence-line="${fenceLine}">`;
     const html = `${open}${pieces.join('')}</div>`;
     this.shareStatements(items, pieces, html, open.length);
@@ -217,6 +223,12 @@ export class PartRenderer {
     for (const items of input.blocks) for (const item of items) if (isStatement(item)) live.add(statementKey(item));
     for (const k of this.statements.keys()) if (!live.has(k)) this.statements.delete(k);
   }
+}
+
+/** What a use line shows: its sheet, its error, each name and value (values by identity). */
+function useInputs(u: UseView | undefined, out: unknown[]): void {
+  out.push(u?.path, u?.error?.message, u?.error?.column);
+  for (const n of u?.names ?? []) out.push(n.name, n.value);
 }
 
 function statementKey(s: Statement): string {

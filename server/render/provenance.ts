@@ -8,7 +8,7 @@ export interface ProvenanceView {
   writtenAt: string;
   sheet: { path: string; root: string };
   meta: Record<string, string>;
-  overrides: ReadonlyArray<{ name: string; was: string; now: string }>;
+  overrides: ReadonlyArray<{ name: string; was: string; now: string; sheet: string }>;
   sources: ReadonlyArray<{ path: string; sha256: string; text: string }>;
   dataFiles: ReadonlyArray<{ path: string; sha256: string | null; bytes: number | null }>;
   inputs: ReadonlyArray<{ name: string; line: number; text: string; value: { display: string } }>;
@@ -34,7 +34,7 @@ export function provenanceHtml(p: ProvenanceView): string {
   ];
   const factRows = facts.map(([k, v]) => `<tr><th scope="row">${escapeHtml(k!)}</th><td>${v}</td></tr>`).join('');
   const overrides = p.overrides.length
-    ? `<h3>Overridden for this record</h3><p class="ws-overrides">These inputs were not the sheet's own values when it was recorded:</p>${table(['input', 'on the sheet', 'used here'], p.overrides.map((o) => [code(o.name), escapeHtml(o.was), escapeHtml(o.now)]))}`
+    ? `<h3>Overridden for this record</h3><p class="ws-overrides">These inputs were not the sheet's own values when it was recorded:</p>${table(['input', 'defined in', 'on the sheet', 'used here'], p.overrides.map((o) => [code(o.name), code(o.sheet), escapeHtml(o.was), escapeHtml(o.now)]))}`
     : '<p>No input was overridden: every value is the sheet\'s own.</p>';
   const sources = table(
     ['source', 'SHA-256', 'size'],

@@ -22,6 +22,8 @@ export interface ValueJson {
   warnings?: string[];
   /** How it was computed, what is neglected. */
   remarks?: string[];
+  /** For a name brought in by `use`: the sheet it comes from, as this one names it. */
+  from?: string;
 }
 
 /** Lists longer than this leave out their items in JSON (the display still tells). */

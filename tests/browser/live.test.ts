@@ -57,6 +57,23 @@ describeInBrowser('live sheet page', () => {
     expect(await page.textContent('.live-status')).toMatch(/updated \d/);
   });
 
+  it('re-pushes a sheet when a sheet it uses is saved, and links each used name to its definition', async () => {
+    const inputs = (u: string) => `# Inputs\n\n\`\`\`basis\nU_inf = ${u}\nL_ref = 4.2 m\n\`\`\`\n`;
+    const car = '# Car\n\n```basis\nuse "inputs.md" (U_inf, L_ref)\nRe = U_inf * L_ref / (1.5e-5 m^2/s)\n```\n';
+    const { dir, server } = await serveFolder({ 'inputs.md': inputs('30 m/s'), 'car.md': car });
+    const page = await openPage(server.url + 'sheet/car.md');
+    await waitForValue(page, 'Re', (30 * 4.2) / 1.5e-5);
+    await waitForStatus(page, 'live');
+    await page.evaluate(() => ((window as unknown as { loadedOnce: boolean }).loadedOnce = true));
+    await writeFile(path.join(dir, 'inputs.md'), inputs('12 m/s'));
+    await waitForValue(page, 'Re', (12 * 4.2) / 1.5e-5);
+    expect(await page.evaluate(() => (window as unknown as { loadedOnce?: boolean }).loadedOnce)).toBe(true);
+    expect(await page.textContent('.ws-use')).toContain('12 m/s');
+    await page.click('a.ws-used-name[href$="#v-U_inf"]');
+    await page.waitForURL(/\/sheet\/inputs\.md#v-U_inf$/);
+    await waitForValue(page, 'U_inf', 12);
+  });
+
   it('says it is evaluating while a slow sheet runs, and not for a quick one', async () => {
     const { dir, server } = await serveFolder({ 'wing.md': wingSheet('12 m/s') }, { runner: new SandboxWithFaults() });
     const page = await openPage(server.url + 'sheet/wing.md');

@@ -71,7 +71,7 @@ describe('wakesheet CLI', () => {
     expect((await run(['frobnicate'])).code).toBe(2);
     const help = await run(['check', '--help']);
     expect(help.code).toBe(0);
-    expect(help.stdout).toContain('wakesheet check [DIR]');
+    expect(help.stdout).toContain('wakesheet check [DIR | SHEET.md]');
   });
 
   it('refuses what is not one sheet in one plain line, exit 2: a folder, a data file, an unknown flag', async () => {
@@ -107,5 +107,33 @@ describe('wakesheet CLI', () => {
     expect(r.stdout).toMatch(/^w:\n  rho = 1\.225 kg\/m³\n/);
     const v = await run(['--version']);
     expect([v.code, v.stdout]).toEqual([0, expect.stringMatching(/^wakesheet \d+\.\d+\.\d+\n$/)]);
+  });
+
+  it('--set replaces an input for one run, says so, and refuses what it cannot set', async () => {
+    const set = await run(['eval', join(dir, 'good.md'), '--set', 'U=9 m/s']);
+    expect(set.code).toBe(1); // the check "fast enough" fails at 9 m/s
+    expect(set.stdout).toMatch(/^set U = 9 m\/s \(.*good\.md says 12 m\/s\)\nT = 15 °C\n/);
+    expect(set.stdout).toContain('U = 9 m/s');
+    expect(set.stdout).toContain('FAIL line 7: fast enough');
+    const json = JSON.parse((await run(['eval', join(dir, 'good.md'), '--json', '--set', 'U=20m/s', '--set', 'I=10 %'])).stdout);
+    expect([json.values.U.si, json.values.I.si]).toEqual([20, 0.1]);
+    expect(json.overrides.map((o: { name: string }) => o.name)).toEqual(['I', 'U']); // in the order the sheet defines them
+    const form = await run(['eval', join(dir, 'good.md'), '--set', 'U']);
+    expect([form.code, form.stderr]).toEqual([2, expect.stringContaining('--set U: write it as NAME=VALUE')]);
+    const twice = await run(['eval', join(dir, 'good.md'), '--set', 'U=1 m/s', '--set', 'U=2 m/s']);
+    expect([twice.code, twice.stderr]).toEqual([2, expect.stringContaining('--set U is given twice')]);
+    const unknown = await run(['eval', join(dir, 'good.md'), '--set', 'V=1 m/s']);
+    expect([unknown.code, unknown.stdout]).toEqual([1, expect.stringContaining('--set V: no input `V` in this sheet')]);
+  });
+
+  it('check --set sets a name in every sheet that has it, and names one no sheet has', async () => {
+    const both = await run(['check', '.', '--set', 'U=25 m/s'], dir);
+    // At 25 m/s bad.md's check "fast" holds; its unit error stays.
+    expect(both.stdout).not.toContain('check failed fast');
+    expect(both.stdout).toContain('with U = 25 m/s set for this run');
+    const none = await run(['check', '.', '--set', 'Q=1'], dir);
+    expect([none.code, none.stdout]).toEqual([1, expect.stringContaining('--set Q: no sheet under . has an input `Q`')]);
+    const one = await run(['check', join(dir, 'good.md'), '--set', 'U=25 m/s']);
+    expect([one.code, one.stdout]).toEqual([0, expect.stringContaining('1 sheet, all checks pass')]);
   });
 });

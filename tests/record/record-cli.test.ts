@@ -103,4 +103,26 @@ describe('writing a record', () => {
     expect(existsSync(p.record)).toBe(true);
     expect(readdirSync(p.dir).filter((f) => f.endsWith('.md')).length).toBe(1);
   }, 60_000);
+
+  it('records a run with inputs set and a used sheet, and verify runs it again from the record alone', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'ws-record-use-'));
+    writeFileSync(join(dir, 'inputs.md'), '# Inputs\n\n```basis\nU_inf = 30 m/s\nD = 0.12 m\n```\n');
+    const sheet = join(dir, 'pod.md');
+    writeFileSync(sheet, '# Pod\n\n```basis\nuse "inputs.md"\nRe = U_inf * D / (1.5e-5 m^2/s)\ncheck Re > 2e5 "past the drag crisis"\n```\n');
+    const record = join(dir, 'pod-record.html');
+    expect((await run(['render', sheet, '-o', record, '--set', 'U_inf=40 m/s'])).code).toBe(0);
+    const html = readFileSync(record, 'utf8');
+    const data = readRecord(html)!;
+    expect(data.sources.map((x) => x.path)).toEqual(['pod.md', 'inputs.md']);
+    expect(data.dataFiles).toEqual([]);
+    expect(data.overrides).toEqual([{ name: 'U_inf', was: '30 m/s', now: '40 m/s', sheet: 'inputs.md' }]);
+    // Re = 40 × 0.12 / 1.5e-5 = 3.2e5
+    expect(data.values.Re!.si).toBeCloseTo(3.2e5, 6);
+    expect(html).toContain('one input was set for it');
+    expect(html).toContain('Overridden for this record');
+    // The used sheet changes on disk: the record still verifies, for it holds the text it was run with.
+    writeFileSync(join(dir, 'inputs.md'), '# Inputs\n\n```basis\nU_inf = 10 m/s\nD = 0.12 m\n```\n');
+    const ok = await run(['verify', record]);
+    expect([ok.code, ok.stdout]).toEqual([0, expect.stringMatching(/^matches: /)]);
+  }, 30_000);
 });
