@@ -102,6 +102,17 @@ describe('layer_stack entry', () => {
     expect(text).toMatch(/cells lie across the boundary layer/);
   });
 
+  it('flags an implausible layer count: 1 µm growing by 1 % to 1 km takes 1620 layers (common practice: up to about 100)', () => {
+    // The count solved by hand: n = ln(1 + (total/first)(g − 1))/ln g, rounded up (geometric series).
+    const n = Math.ceil(Math.log(1 + (1e3 / 1e-6) * 0.01) / Math.log(1.01));
+    expect(n).toBe(1620);
+    const r = asRecord(call('layer_stack', { first: si(1e-6, 'm'), growth: num(1.01), total: si(1e3, 'm'), ...base }));
+    expect(siField(r, 'count')).toBe(n);
+    expect(r.warnings.join(' ')).toMatch(/1620 layers is far more than a wall-layer stack usually has \(up to about 100, common practice\)/);
+    const usual = asRecord(call('layer_stack', { first: si(Y1, 'm'), growth: num(1.1), count: num(100), ...base }));
+    expect(usual.warnings.join(' ')).not.toMatch(/layers is far more/);
+  });
+
   it('raises no flag for a gentle, well-matched stack', () => {
     const r = asRecord(call('layer_stack', { first: si(Y1, 'm'), growth: num(1.15), count: num(30), core: si(1.2 * Y1 * 1.15 ** 29, 'm'), delta: si(1e-3, 'm'), ...base }));
     expect(r.warnings).toEqual([]);
