@@ -3,10 +3,13 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { benchColdStart, printColdStart } from './cold-start.js';
 import { benchLive, printLive } from './live.js';
 
 const out = path.join(path.dirname(fileURLToPath(import.meta.url)), 'out');
+const coldStart = benchColdStart();
+printColdStart(coldStart);
 const live = await benchLive();
 printLive(live);
 await mkdir(out, { recursive: true });
-await writeFile(path.join(out, 'live.json'), JSON.stringify({ at: new Date().toISOString(), live }, null, 2));
+await writeFile(path.join(out, 'live.json'), JSON.stringify({ at: new Date().toISOString(), live, coldStart }, null, 2));

@@ -15,7 +15,7 @@ export async function checkCommand(argv: string[]): Promise<number> {
   try {
     for (const file of findSheets(dir)) {
       sheets++;
-      const r = await runOne(sandbox, file, dir);
+      const r = await runOne(sandbox, file, dir, { render: false });
       const rel = relative(process.cwd(), file) || file;
       for (const e of r.errors) {
         bad++;

@@ -9,7 +9,7 @@ export async function evalCommand(argv: string[]): Promise<number> {
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
   const sandbox = new Sandbox();
   try {
-    const r = await runOne(sandbox, file, root);
+    const r = await runOne(sandbox, file, root, { render: false });
     if (flags.has('json')) {
       const errors = r.errors.map((e) => ({ line: e.line, column: e.column, message: e.message, code: e.code }));
       process.stdout.write(JSON.stringify({ values: r.values, checks: r.checks, errors }, null, 2) + '\n');

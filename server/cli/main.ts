@@ -1,7 +1,6 @@
-// The wakesheet command: argv → one of eval, render, check, serve.
-import { checkCommand } from './check.js';
-import { evalCommand } from './eval.js';
-import { renderCommand } from './render.js';
+// The wakesheet command: argv → one of eval, render, check, serve. Each
+// command's module is loaded only when it runs: a command line that starts in
+// a few tens of milliseconds is one a pre-commit hook can call per sheet.
 import { UsageError } from './shared.js';
 
 const USAGE = `wakesheet — design-basis worksheets for external-flow CFD set-ups
@@ -37,13 +36,12 @@ Serves the sheets under DIR (default: worksheets) on http://127.0.0.1:PORT and
 updates open pages on every save. --host binds another address (with a warning).`,
 };
 
-async function serve(argv: string[]): Promise<number> {
-  // Loaded only for serve: the server's modules are not needed by the other commands.
-  const { serveCommand } = await import('./serve.js');
-  return serveCommand(argv);
-}
-
-const COMMANDS: Record<string, (argv: string[]) => Promise<number>> = { eval: evalCommand, render: renderCommand, check: checkCommand, serve };
+const COMMANDS: Record<string, (argv: string[]) => Promise<number>> = {
+  eval: async (argv) => (await import('./eval.js')).evalCommand(argv),
+  render: async (argv) => (await import('./render.js')).renderCommand(argv),
+  check: async (argv) => (await import('./check.js')).checkCommand(argv),
+  serve: async (argv) => (await import('./serve.js')).serveCommand(argv),
+};
 
 export async function main(argv: string[]): Promise<number> {
   const [cmd, ...rest] = argv;

@@ -2,7 +2,7 @@
 // running one sheet in the sandbox with a sandbox failure as an error line.
 import { existsSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import type { SheetResult } from '../pipeline/index.js';
+import type { RunOptions, SheetResult } from '../pipeline/types.js';
 import { Sandbox, SandboxError } from '../sandbox/sandbox.js';
 
 export class UsageError extends Error {}
@@ -40,9 +40,9 @@ function readSheet(file: string): string {
 }
 
 /** Runs one sheet; a sandbox failure (timeout, memory, crash) comes back as the sheet's one error. */
-export async function runOne(sandbox: Sandbox, file: string, root: string): Promise<SheetResult> {
+export async function runOne(sandbox: Sandbox, file: string, root: string, opts: Omit<RunOptions, 'path' | 'root'> = {}): Promise<SheetResult> {
   try {
-    return await sandbox.run(readSheet(file), { path: resolve(file), root });
+    return await sandbox.run(readSheet(file), { ...opts, path: resolve(file), root });
   } catch (e) {
     if (!(e instanceof SandboxError)) throw e;
     return failedResult(e.message);

@@ -67,7 +67,8 @@ export class SheetPipeline {
     // render
     const sig = sigfigs(meta.sigfigs);
     const results = new Map(evaluation.results.map((r) => [r.stmt.line, r]));
-    const parts = this.renderer.render({ sheet, blocks, results, inline: evaluation.inline, view: { sig, values: evaluation.values, lastGood: this.lastGood } });
+    // A run for values only (eval, check) renders no parts, and so never loads KaTeX.
+    const parts = opts.render === false ? [] : this.renderer.render({ sheet, blocks, results, inline: evaluation.inline, view: { sig, values: evaluation.values, lastGood: this.lastGood } });
 
     return buildReport({
       title: meta.title ?? firstHeading(body) ?? (path ? basename(path, '.md') : 'Worksheet'),

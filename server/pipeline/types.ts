@@ -56,4 +56,6 @@ export interface RunOptions {
   path?: string;
   /** Project folder: data files are readable only inside it. */
   root?: string;
+  /** false: values, checks and errors only, with no parts (the command line's eval and check). */
+  render?: boolean;
 }

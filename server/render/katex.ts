@@ -1,6 +1,15 @@
 // KaTeX with a cache: a re-render after one changed input redraws only the
 // formulas whose text changed. Trust stays off (no \href to javascript:).
-import katex from 'katex';
+// KaTeX is loaded at the first formula: a run that renders nothing (the
+// command line's eval and check) never pays for it.
+import { createRequire } from 'node:module';
+import type katexModule from 'katex';
+
+let katex: typeof katexModule | undefined;
+
+function typesetter(): typeof katexModule {
+  return (katex ??= createRequire(import.meta.url)('katex') as typeof katexModule);
+}
 
 const cache = new Map<string, string>();
 const MAX = 20_000;
@@ -9,7 +18,7 @@ export function mathHtml(latex: string, display = false): string {
   const key = (display ? 'D' : 'I') + latex;
   const hit = cache.get(key);
   if (hit !== undefined) return hit;
-  const html = katex.renderToString(latex, { throwOnError: false, displayMode: display, output: 'htmlAndMathml', strict: 'ignore', trust: false, maxExpand: 200 });
+  const html = typesetter().renderToString(latex, { throwOnError: false, displayMode: display, output: 'htmlAndMathml', strict: 'ignore', trust: false, maxExpand: 200 });
   if (cache.size >= MAX) cache.delete(cache.keys().next().value!);
   cache.set(key, html);
   return html;

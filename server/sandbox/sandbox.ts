@@ -5,8 +5,10 @@
 // fresh one started for the next request.
 import { fork, type ChildProcess } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
-import { DEFAULT_LIMITS, type Limits } from '../evaluate/index.js';
-import { withPage, type RunOptions, type SheetReport, type SheetResult } from '../pipeline/index.js';
+// Only light modules here: the parent (the command line, the server) does not load the engine.
+import { DEFAULT_LIMITS, type Limits } from '../evaluate/limits.js';
+import { withPage } from '../pipeline/page.js';
+import type { RunOptions, SheetReport, SheetResult } from '../pipeline/types.js';
 import { pipelineKey, type ChildReply, type ChildRequest, type WireReport } from './wire.js';
 
 export interface SandboxOptions {
