@@ -53,7 +53,7 @@ describe('flat-plate boundary layer', () => {
 
   it('refuses a Reynolds number where the layer would not be thin, with its thickness: δ = 19 m on a 1 m plate', () => {
     // 1e-6 m/s over 1 m of air (nu 1.5e-5): Re_x = 0.067 and Blasius δ99 = 4.91 x/√Re_x = 19 m.
-    expect(() => boundaryLayer(1e-6, 1, 1.5e-5)).toThrow(/Re = 0.0666666666666667 is below 1e3: the boundary layer would not be thin \(Blasius δ99 = 19 x = 19 m at x = 1 m\)/);
+    expect(() => boundaryLayer(1e-6, 1, 1.5e-5)).toThrow(/Re = 0.0667 is below 1e3: the boundary layer would not be thin \(Blasius δ99 = 19 x = 19 m at x = 1 m\)/);
   });
 
   it('refuses a negative speed with the rule for speeds, and zero, which gives no boundary layer', () => {

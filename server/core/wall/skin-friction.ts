@@ -109,7 +109,7 @@ export function checkThinLayer(re: number, x?: number): void {
     const ratio = 4.91 / Math.sqrt(re);
     const thick = x === undefined ? '' : ` = ${lengthText(ratio * x)} at x = ${lengthText(x)}`;
     throw new TradeError(
-      `Re = ${exactText(re)} is below ${numberText(THIN_LAYER_MIN_RE, { notation: 'sci' })}: the boundary layer would not be thin ` +
+      `Re = ${numberText(re)} is below ${numberText(THIN_LAYER_MIN_RE, { notation: 'sci' })}: the boundary layer would not be thin ` +
         `(Blasius δ99 = ${numberText(ratio, { digits: 2 })} x${thick}), so flat-plate boundary-layer formulas do not apply; the flow is dominated by viscosity. ` +
         'Check the speed, the length and the fluid, or model the body itself',
     );
