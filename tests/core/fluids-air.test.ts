@@ -80,6 +80,15 @@ describe('air() as a worksheet function', () => {
     expect(() => call('air', { T: shown(-300, 'degC'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(/−300 °C is below absolute zero/);
   });
 
+  it('refuses a temperature difference where a temperature belongs', () => {
+    // 36 °F of interval is 20 K (NIST SP 811 (2008) B.8; from memory): a difference, not a reading.
+    expect(() => call('air', { T: shown(36, 'delta_degF'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(
+      'T is a temperature difference (20 K), not a temperature; give an absolute temperature such as 20 degC or 293.15 K',
+    );
+    // A value in K without that mark is taken as a temperature.
+    near(field(call('air', { T: si(288.15, 'K'), p: si(101325, 'Pa'), RH: shown(0, '%') }).value, 'rho'), 1.225, 0.00005);
+  });
+
   it('refuses a length where a temperature belongs', () => {
     expect(() => call('air', { T: si(5, 'm'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(TradeError);
   });

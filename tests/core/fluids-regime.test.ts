@@ -128,6 +128,8 @@ describe('fluid() and bad calls', () => {
     expect(siOfValue(call('reynolds', { U: si(0, 'm/s'), L: si(1, 'm'), fluid: seaLevelAir() }).value)).toBe(0);
     expect(siOfValue(call('dynamic_pressure', { U: si(0, 'm/s'), fluid: seaLevelAir() }).value)).toBe(0);
     expect(siOfValue(call('mach', { U: si(0, 'm/s'), fluid: seaLevelAir() }).value)).toBe(0);
+    expect(() => call('reynolds', { U: si(Number.POSITIVE_INFINITY, 'm/s'), L: si(1, 'm'), fluid: seaLevelAir() })).toThrow('U = infinity m/s is not a finite speed');
+    expect(() => call('mach', { U: si(Number.NaN, 'm/s'), fluid: seaLevelAir() })).toThrow('U = not a number m/s is not a finite speed');
   });
 
   it('refuses a temperature where a length belongs, and a non-positive length', () => {

@@ -27,6 +27,7 @@ describe('first cell for a target y+', () => {
     expect(relErr(siField(r, 'height'), 2 * lVisc)).toBeLessThan(1e-12);
     expect(textField(r, 'band')).toBe('viscous sublayer');
     expect(r.remarks.join(' ')).toMatch(/Resolve the wall/);
+    expect(r.remarks.join(' ')).toContain('c_f by schlichting (Schlichting, Boundary-Layer Theory (7th ed.), footnote to Eq. (21.16): c_f = (2 log10 Re_x - 0.65)^-2.3) at Re built on L');
   });
 
   it('with placement "height" the cell top meets the target', () => {

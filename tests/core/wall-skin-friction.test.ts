@@ -45,6 +45,21 @@ describe('skin friction correlations', () => {
     }
   }
 
+  it('names the formula it used and its source', () => {
+    const sources: Array<[Method, 'local' | 'mean', string]> = [
+      ['blasius', 'local', 'Blasius (1908) laminar flat plate, c_f = 0.664 Re_x^-1/2'],
+      ['blasius', 'mean', 'Blasius (1908) laminar flat plate, C_F = 1.328 Re_L^-1/2'],
+      ['schlichting', 'local', 'Schlichting, Boundary-Layer Theory (7th ed.), footnote to Eq. (21.16): c_f = (2 log10 Re_x - 0.65)^-2.3'],
+      ['schlichting', 'mean', 'Prandtl–Schlichting, Schlichting, Boundary-Layer Theory (7th ed.), Eq. (21.16): C_F = 0.455 (log10 Re_L)^-2.58'],
+      ['power', 'local', 'one-seventh power law, Schlichting, Boundary-Layer Theory, Eq. (21.12): c_f = 0.0592 Re_x^-1/5'],
+      ['power', 'mean', 'one-seventh power law, mean over the plate (Prandtl): C_F = 0.074 Re_L^-1/5'],
+      ['ittc1957', 'mean', 'ITTC 1957 model-ship correlation line, C_F = 0.075/(log10 Re - 2)^2 (8th ITTC, Madrid 1957; tables in Morrall, NPL Ship Report 142, 1970)'],
+      ['white', 'local', 'White, Viscous Fluid Flow (3rd ed., 2006), ch. 6: c_f = 0.455/ln^2(0.06 Re_x)'],
+      ['white', 'mean', 'White, Viscous Fluid Flow (3rd ed., 2006), ch. 6: C_F = 0.523/ln^2(0.06 Re_L)'],
+    ];
+    for (const [method, kind, source] of sources) expect(skinFriction(1e6, method, kind).source).toBe(source);
+  });
+
   it('gives the local coefficient unless asked for the mean', () => {
     expect(skinFriction(1e6, 'power').kind).toBe('local');
     expect(skinFriction(1e6, 'power', 'mean').kind).toBe('mean');

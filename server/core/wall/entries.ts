@@ -126,7 +126,7 @@ const first_cell: TradeFunction = {
       placement === 'centroid'
         ? 'Target y+ met at the first cell centre (cell-centred solvers): height = 2 × y+ × l_visc.'
         : 'Target y+ met at the first cell top: height = y+ × l_visc.',
-      `c_f by ${method} at Re built on L, the lowest along the body; near the nose τ_w is higher and so is y+, so check the run with yplus_report.`,
+      `c_f by ${method} (${c.source}) at Re built on L, the lowest along the body; near the nose τ_w is higher and so is y+, so check the run with yplus_report.`,
     ];
     return record(
       [

@@ -38,6 +38,8 @@ export function wallTreatment(band: Band): string {
 export interface WallScales {
   Re: number;
   cf: number;
+  /** The skin-friction formula used and its source. */
+  source: string;
   tau_w: number;
   u_tau: number;
   l_visc: number;
@@ -51,11 +53,11 @@ export function wallScales(U: number, L: number, rho: number, nu: number, method
   const Re = (U * L) / nu;
   // The local coefficient at L; a method with only a mean one (ittc1957) gives that, and says so.
   const kind = hasKind(method, 'local') ? 'local' : 'mean';
-  const { cf, warnings } = skinFriction(Re, method, kind);
+  const { cf, source, warnings } = skinFriction(Re, method, kind);
   if (kind === 'mean') warnings.push(`${method} gives only the mean coefficient over the length Re is built on, not the local value at L; τ_w and y+ follow from that mean.`);
   const tau_w = 0.5 * rho * U * U * cf;
   const u_tau = Math.sqrt(tau_w / rho);
-  return { Re, cf, tau_w, u_tau, l_visc: nu / u_tau, warnings };
+  return { Re, cf, source, tau_w, u_tau, l_visc: nu / u_tau, warnings };
 }
 
 export interface FirstCell extends WallScales {

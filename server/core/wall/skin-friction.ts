@@ -86,21 +86,15 @@ const METHODS: Record<SkinFrictionMethod, MethodSpec> = {
 export interface SkinFrictionResult {
   cf: number;
   kind: SkinFrictionKind;
+  /** The formula used and where it is published. */
+  source: string;
   regime: 'laminar' | 'turbulent';
   warnings: string[];
-}
-
-export function isSkinFrictionMethod(name: string): name is SkinFrictionMethod {
-  return (SKIN_FRICTION_METHODS as readonly string[]).includes(name);
 }
 
 /** Whether the method's source gives this kind of coefficient (ittc1957 has only a mean one). */
 export function hasKind(method: SkinFrictionMethod, kind: SkinFrictionKind): boolean {
   return METHODS[method][kind] !== undefined;
-}
-
-export function skinFrictionSource(method: SkinFrictionMethod, kind: SkinFrictionKind): string {
-  return (METHODS[method][kind] ?? METHODS[method].mean!).source;
 }
 
 /** Refuses a Reynolds number where the boundary layer would not be thin; says how thick it would be (at x, when given). */
@@ -139,5 +133,5 @@ export function skinFriction(re: number, method: SkinFrictionMethod, kind: SkinF
     warnings.push(`Re = ${at} is at or above ${transition}, where the boundary layer is usually turbulent (common practice); use a turbulent method such as "schlichting".`);
   }
   if (m.max && re > m.max.re) warnings.push(`Re = ${at} is above ${numberText(m.max.re, { notation: 'sci' })} for the ${method} formula: ${m.max.why}.`);
-  return { cf, kind, regime: m.regime, warnings };
+  return { cf, kind, source: formula.source, regime: m.regime, warnings };
 }
