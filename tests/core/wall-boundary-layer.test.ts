@@ -34,6 +34,8 @@ describe('flat-plate boundary layer', () => {
 
   it('warns above the power-law range, Re_x > 1e7 (Schlichting Eq. 21.12)', () => {
     expect(boundaryLayer(40, 6, 1.5e-5).warnings.join(' ')).toMatch(/above 1e7/);
+    // At the end of the range itself, no warning: U x/nu = 15 m/s × 10 m / 1.5e-5 m²/s = 1e7.
+    expect(boundaryLayer(15, 10, 1.5e-5).warnings).toEqual([]);
   });
 
   it('registry entry builds Re_x from the fluid record', () => {

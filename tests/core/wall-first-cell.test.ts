@@ -41,6 +41,9 @@ describe('first cell for a target y+', () => {
     expect(bandOf(4.99)).toBe('viscous sublayer');
     expect(bandOf(5)).toBe('buffer layer');
     expect(bandOf(29.9)).toBe('buffer layer');
+    expect(bandOf(30)).toBe('log layer');
+    expect(bandOf(300)).toBe('log layer');
+    expect(bandOf(300.1)).toBe('outer layer');
     expect(bandOf(50)).toBe('log layer');
     expect(bandOf(500)).toBe('outer layer');
   });

@@ -93,6 +93,7 @@ describe('skin friction correlations', () => {
     expect(skinFriction(2e9, 'schlichting').warnings.join(' ')).toMatch(/above 1e9/);
     expect(skinFriction(1e9, 'schlichting').warnings).toEqual([]);
     expect(skinFriction(2e10, 'ittc1957', 'mean').warnings.join(' ')).toMatch(/above 1e10/);
+    expect(skinFriction(1e10, 'ittc1957', 'mean').warnings).toEqual([]);
     expect(skinFriction(2e10, 'white').warnings.join(' ')).toMatch(/above 1e10/);
     expect(skinFriction(1e10, 'white').warnings).toEqual([]);
   });

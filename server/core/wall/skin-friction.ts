@@ -19,10 +19,9 @@ export type SkinFrictionKind = (typeof SKIN_FRICTION_KINDS)[number];
  */
 export const THIN_LAYER_MIN_RE = 1e3;
 
+/** Every formula has a value from Re = 17 up (White's ln(0.06 Re) > 0); the thin-layer floor of 1e3 is above all of them. */
 interface Formula {
   readonly f: (re: number) => number;
-  /** Where the formula has a value (a positive denominator). */
-  readonly defined: (re: number) => boolean;
   readonly source: string;
 }
 
@@ -36,8 +35,8 @@ interface MethodSpec {
 const METHODS: Record<SkinFrictionMethod, MethodSpec> = {
   blasius: {
     // Blasius (1908): c_f = 0.664 Re_x^-1/2, C_F = 1.328 Re_L^-1/2 (White, Viscous Fluid Flow §4-3; from memory).
-    local: { f: (re) => 0.664 / Math.sqrt(re), defined: (re) => re > 0, source: 'Blasius (1908) laminar flat plate, c_f = 0.664 Re_x^-1/2' },
-    mean: { f: (re) => 1.328 / Math.sqrt(re), defined: (re) => re > 0, source: 'Blasius (1908) laminar flat plate, C_F = 1.328 Re_L^-1/2' },
+    local: { f: (re) => 0.664 / Math.sqrt(re), source: 'Blasius (1908) laminar flat plate, c_f = 0.664 Re_x^-1/2' },
+    mean: { f: (re) => 1.328 / Math.sqrt(re), source: 'Blasius (1908) laminar flat plate, C_F = 1.328 Re_L^-1/2' },
     regime: 'laminar',
   },
   schlichting: {
@@ -45,12 +44,10 @@ const METHODS: Record<SkinFrictionMethod, MethodSpec> = {
     // the mean coefficient is Eq. (21.16) itself, the Prandtl–Schlichting formula (from memory).
     local: {
       f: (re) => Math.pow(2 * Math.log10(re) - 0.65, -2.3),
-      defined: (re) => 2 * Math.log10(re) - 0.65 > 0,
       source: 'Schlichting, Boundary-Layer Theory (7th ed.), footnote to Eq. (21.16): c_f = (2 log10 Re_x - 0.65)^-2.3',
     },
     mean: {
       f: (re) => 0.455 / Math.pow(Math.log10(re), 2.58),
-      defined: (re) => Math.log10(re) > 0,
       source: 'Prandtl–Schlichting, Schlichting, Boundary-Layer Theory (7th ed.), Eq. (21.16): C_F = 0.455 (log10 Re_L)^-2.58',
     },
     regime: 'turbulent',
@@ -59,8 +56,8 @@ const METHODS: Record<SkinFrictionMethod, MethodSpec> = {
   power: {
     // One-seventh power law: local 0.0592 Re_x^-1/5 with experimental calibration, Schlichting Eq. (21.12),
     // 5e5 < Re_x < 1e7; its mean over a turbulent plate, C_F = 0.074 Re_L^-1/5 (Prandtl; quoted by Wegener 1991).
-    local: { f: (re) => 0.0592 * Math.pow(re, -0.2), defined: (re) => re > 0, source: 'one-seventh power law, Schlichting, Boundary-Layer Theory, Eq. (21.12): c_f = 0.0592 Re_x^-1/5' },
-    mean: { f: (re) => 0.074 * Math.pow(re, -0.2), defined: (re) => re > 0, source: 'one-seventh power law, mean over the plate (Prandtl): C_F = 0.074 Re_L^-1/5' },
+    local: { f: (re) => 0.0592 * Math.pow(re, -0.2), source: 'one-seventh power law, Schlichting, Boundary-Layer Theory, Eq. (21.12): c_f = 0.0592 Re_x^-1/5' },
+    mean: { f: (re) => 0.074 * Math.pow(re, -0.2), source: 'one-seventh power law, mean over the plate (Prandtl): C_F = 0.074 Re_L^-1/5' },
     regime: 'turbulent',
     max: { re: 1e7, why: 'the one-seventh power law holds for 5e5 < Re_x < 1e7 (Schlichting, Boundary-Layer Theory, Eq. 21.12)' },
   },
@@ -68,7 +65,6 @@ const METHODS: Record<SkinFrictionMethod, MethodSpec> = {
     // 8th ITTC (1957) model-ship correlation line: a mean coefficient over the length; the source gives no local one.
     mean: {
       f: (re) => 0.075 / Math.pow(Math.log10(re) - 2, 2),
-      defined: (re) => Math.log10(re) - 2 > 0,
       source: 'ITTC 1957 model-ship correlation line, C_F = 0.075/(log10 Re - 2)^2 (8th ITTC, Madrid 1957; tables in Morrall, NPL Ship Report 142, 1970)',
     },
     regime: 'turbulent',
@@ -76,8 +72,8 @@ const METHODS: Record<SkinFrictionMethod, MethodSpec> = {
   },
   white: {
     // White, Viscous Fluid Flow (3rd ed., 2006), ch. 6: local 0.455/ln²(0.06 Re_x) and mean 0.523/ln²(0.06 Re_L) (from memory).
-    local: { f: (re) => 0.455 / Math.pow(Math.log(0.06 * re), 2), defined: (re) => 0.06 * re > 1, source: 'White, Viscous Fluid Flow (3rd ed., 2006), ch. 6: c_f = 0.455/ln^2(0.06 Re_x)' },
-    mean: { f: (re) => 0.523 / Math.pow(Math.log(0.06 * re), 2), defined: (re) => 0.06 * re > 1, source: 'White, Viscous Fluid Flow (3rd ed., 2006), ch. 6: C_F = 0.523/ln^2(0.06 Re_L)' },
+    local: { f: (re) => 0.455 / Math.pow(Math.log(0.06 * re), 2), source: 'White, Viscous Fluid Flow (3rd ed., 2006), ch. 6: c_f = 0.455/ln^2(0.06 Re_x)' },
+    mean: { f: (re) => 0.523 / Math.pow(Math.log(0.06 * re), 2), source: 'White, Viscous Fluid Flow (3rd ed., 2006), ch. 6: C_F = 0.523/ln^2(0.06 Re_L)' },
     regime: 'turbulent',
     max: { re: 1e10, why: 'White fitted it to flat-plate data up to about 1e10 (from memory)' },
   },
@@ -117,7 +113,6 @@ export function skinFriction(re: number, method: SkinFrictionMethod, kind: SkinF
   const formula = m[kind];
   if (!formula) throw new TradeError(`${method} gives only the mean coefficient over the length (the source has no local one); write kind: "mean"`);
   checkThinLayer(re);
-  if (!formula.defined(re)) throw new TradeError(`the ${method} formula has no value at Re = ${exactText(re)}`);
   const cf = formula.f(re);
   const warnings: string[] = [];
   const at = numberText(re, { notation: 'sci' });
