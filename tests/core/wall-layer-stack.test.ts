@@ -63,8 +63,39 @@ describe('layer stack as a geometric series', () => {
     expect(relErr(seriesSum(g, 50), 50 + (50 * 49) / 2 * 1e-9)).toBeLessThan(1e-12);
   });
 
+  it('solves growth above 2 and below 0.5 by widening its bracket, and says when none reaches', () => {
+    // Three layers of ratio 3: 1 + 3 + 9 = 13 first layers; of ratio 0.25: 1 + 0.25 + 0.0625.
+    expect(solveStack({ first: Y1, count: 3, total: 13 * Y1 }).growth).toBeCloseTo(3, 12);
+    expect(solveStack({ first: Y1, count: 3, total: 1.3125 * Y1 }).growth).toBeCloseTo(0.25, 12);
+    expect(() => solveStack({ first: Y1, count: 2, total: 3e6 * Y1 })).toThrow('no growth ratio below 1e6 reaches that total');
+    expect(() => solveStack({ first: Y1, count: 3, total: (1 + 1e-13) * Y1 })).toThrow('no positive growth ratio gives that total');
+  });
+
+  it('a single layer has growth 1 only when total equals first', () => {
+    expect(solveStack({ first: Y1, count: 1, total: Y1 }).growth).toBe(1);
+    expect(() => solveStack({ first: Y1, count: 1, total: 2 * Y1 })).toThrow('a single layer has no growth ratio unless total equals first');
+    expect(solveStack({ first: Y1, growth: G, count: 1 }).total).toBe(Y1);
+  });
+
+  it('allows up to 10000 layers and no more, given or solved', () => {
+    expect(solveStack({ first: Y1, growth: 1, count: 10000 }).count).toBe(10000);
+    expect(() => solveStack({ first: Y1, growth: 1, count: 10001 })).toThrow('count 10001 is more than the 10000 layers a stack may have');
+    expect(solveStack({ first: Y1, growth: 1, total: 10000 * Y1 }).count).toBe(10000);
+    expect(() => solveStack({ first: Y1, growth: 1, total: 10000.5 * Y1 })).toThrow('the total needs 10001 layers, more than the 10000 a stack may have');
+    expect(() => solveStack({ first: Y1, growth: G, count: 0.4 })).toThrow('count must be a whole number of layers, not 0.4');
+    expect(solveStack({ first: Y1, growth: 1, total: 12 * Y1 }).count).toBe(12);
+  });
+
+  it('solves the count for layers that shrink, while their sum can still reach the total', () => {
+    // growth 0.5: the sum approaches 2 first layers; 1.75 first is three layers.
+    expect(solveStack({ first: Y1, growth: 0.5, total: 1.75 * Y1 }).count).toBe(3);
+    expect(() => solveStack({ first: Y1, growth: 0.5, total: 2 * Y1 })).toThrow('with growth 0.5 the layers shrink and their sum never passes 2 × first, short of the total');
+  });
+
   it('refuses anything but exactly three of the four, and impossible stacks', () => {
-    expect(() => solveStack({ first: Y1, growth: G })).toThrow(/exactly three.*given: first, growth/);
+    expect(() => solveStack({ first: Y1, growth: G })).toThrow('give exactly three of first, growth, count and total (given: first, growth)');
+    expect(() => solveStack({})).toThrow('give exactly three of first, growth, count and total (given: none)');
+    expect(() => solveStack({ first: 0, growth: G, count: N })).toThrow('first must be a positive number, not 0');
     expect(() => solveStack({ first: Y1, growth: G, count: N, total: TOTAL })).toThrow(/exactly three/);
     expect(() => solveStack({ first: Y1, growth: G, count: 2.5 })).toThrow(/whole number/);
     expect(() => solveStack({ first: Y1, count: 5, total: Y1 / 2 })).toThrow(/more than first/);
