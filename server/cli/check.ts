@@ -4,12 +4,11 @@ import { relative, resolve } from 'node:path';
 import { findSheets } from '../read/sheet-files.js';
 import { colour, parseArgs, runOne, Sandbox, UsageError } from './shared.js';
 
-export async function checkCommand(argv: string[]): Promise<number> {
+export async function checkCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const { positional } = parseArgs(argv, []);
   if (positional.length > 1) throw new UsageError('check takes at most one folder');
   const dir = resolve(positional[0] ?? '.');
   if (!existsSync(dir) || !statSync(dir).isDirectory()) throw new UsageError(`not a folder: ${positional[0]}`);
-  const sandbox = new Sandbox();
   let bad = 0;
   let sheets = 0;
   try {

@@ -2,12 +2,11 @@
 import { dirname, resolve } from 'node:path';
 import { colour, failing, parseArgs, runOne, Sandbox, UsageError } from './shared.js';
 
-export async function evalCommand(argv: string[]): Promise<number> {
+export async function evalCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const { positional, flags } = parseArgs(argv, ['root']);
   if (positional.length !== 1) throw new UsageError('eval takes one sheet');
   const file = positional[0]!;
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
-  const sandbox = new Sandbox();
   try {
     const r = await runOne(sandbox, file, root, { render: false });
     if (flags.has('json')) {

@@ -1,7 +1,7 @@
 // The wakesheet command: argv → one of eval, render, check, serve. Each
 // command's module is loaded only when it runs: a command line that starts in
 // a few tens of milliseconds is one a pre-commit hook can call per sheet.
-import { UsageError } from './shared.js';
+import { Sandbox, UsageError } from './shared.js';
 
 const USAGE = `wakesheet — design-basis worksheets for external-flow CFD set-ups
 
@@ -36,10 +36,11 @@ Serves the sheets under DIR (default: worksheets) on http://127.0.0.1:PORT and
 updates open pages on every save. --host binds another address (with a warning).`,
 };
 
-const COMMANDS: Record<string, (argv: string[]) => Promise<number>> = {
-  eval: async (argv) => (await import('./eval.js')).evalCommand(argv),
-  render: async (argv) => (await import('./render.js')).renderCommand(argv),
-  check: async (argv) => (await import('./check.js')).checkCommand(argv),
+/** The commands that evaluate in the sandbox get one started before their own code loads. */
+const COMMANDS: Record<string, (argv: string[], sandbox: () => Sandbox) => Promise<number>> = {
+  eval: async (argv, sandbox) => (await import('./eval.js')).evalCommand(argv, sandbox()),
+  render: async (argv, sandbox) => (await import('./render.js')).renderCommand(argv, sandbox()),
+  check: async (argv, sandbox) => (await import('./check.js')).checkCommand(argv, sandbox()),
   serve: async (argv) => (await import('./serve.js')).serveCommand(argv),
 };
 
@@ -58,13 +59,26 @@ export async function main(argv: string[]): Promise<number> {
     process.stdout.write((HELP[cmd] ?? USAGE) + '\n');
     return 0;
   }
+  // The evaluator process starts now, while this one loads the command: the two
+  // start-ups overlap instead of adding up.
+  let sandbox: Sandbox | undefined;
+  const early = () => {
+    if (!sandbox) {
+      sandbox = new Sandbox();
+      void sandbox.warm();
+    }
+    return sandbox;
+  };
+  if (cmd !== 'serve') early();
   try {
-    return await run(rest);
+    return await run(rest, early);
   } catch (e) {
     if (e instanceof UsageError) {
       process.stderr.write(`${e.message}\n\n${HELP[cmd]}\n`);
       return 2;
     }
     throw e;
+  } finally {
+    await sandbox?.close();
   }
 }

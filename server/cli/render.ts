@@ -3,13 +3,12 @@ import { writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { failing, parseArgs, runOne, Sandbox, UsageError } from './shared.js';
 
-export async function renderCommand(argv: string[]): Promise<number> {
+export async function renderCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const { positional, flags } = parseArgs(argv, ['o', 'output', 'root']);
   const out = (flags.get('o') ?? flags.get('output')) as string | undefined;
   if (positional.length !== 1 || !out) throw new UsageError('render takes one sheet and -o OUT.html');
   const file = positional[0]!;
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
-  const sandbox = new Sandbox();
   try {
     const r = await runOne(sandbox, file, root);
     if (!r.html) {
