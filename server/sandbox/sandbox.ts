@@ -3,13 +3,12 @@
 // process); a child that dies takes nothing with it. Requests queue one at a
 // time; a request that overruns its wall clock gets the child killed and a
 // fresh one started for the next request.
-import { fork, type ChildProcess } from 'node:child_process';
-import { statSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import type { ChildProcess } from 'node:child_process';
 // Only light modules here: the parent (the command line, the server) does not load the engine.
 import { DEFAULT_LIMITS, type Limits } from '../evaluate/limits.js';
 import { withPage } from '../pipeline/page.js';
 import type { RunOptions, SheetReport, SheetResult } from '../pipeline/types.js';
+import { DEFAULT_HEAP_MB, startChild, takeEarly } from './spawn.js';
 import { pipelineKey, type ChildReply, type ChildRequest, type WireReport } from './wire.js';
 
 export interface SandboxOptions {
@@ -36,23 +35,7 @@ interface Pending {
   reject: (e: Error) => void;
 }
 
-/**
- * The child as one bundled file when the build made one after the compiled
- * child (scripts/bundle-child.ts; it starts much faster than a hundred
- * modules), else the compiled child, else (tests under tsx) the source.
- */
-function childModule(): string {
-  if (import.meta.url.endsWith('.ts')) return fileURLToPath(new URL('./child.ts', import.meta.url));
-  const compiled = fileURLToPath(new URL('./child.js', import.meta.url));
-  const bundle = fileURLToPath(new URL('./child.bundle.mjs', import.meta.url));
-  try {
-    return statSync(bundle).mtimeMs >= statSync(compiled).mtimeMs ? bundle : compiled;
-  } catch {
-    return compiled;
-  }
-}
 
-const childPath = childModule();
 
 export class Sandbox {
   private child: ChildProcess | undefined;
@@ -69,7 +52,7 @@ export class Sandbox {
 
   constructor(options: SandboxOptions = {}) {
     this.limits = { ...DEFAULT_LIMITS, ...options.limits, timeoutMs: options.timeoutMs ?? options.limits?.timeoutMs ?? DEFAULT_LIMITS.timeoutMs };
-    this.heapMb = options.heapMb ?? 256;
+    this.heapMb = options.heapMb ?? DEFAULT_HEAP_MB;
   }
 
   /** Runs the pipeline over one sheet in the child. */
@@ -88,24 +71,13 @@ export class Sandbox {
 
   private start(): Promise<void> {
     if (this.ready) return this.ready;
-    const execArgv = [`--max-old-space-size=${this.heapMb}`, '--stack-size=2000'];
-    if (childPath.endsWith('.ts')) execArgv.push('--import', 'tsx');
     this.parts = new Map(); // a new child remembers nothing, and sends every part
-    const child = fork(childPath, [], { execArgv, stdio: ['ignore', 'ignore', 'pipe', 'ipc'], serialization: 'advanced' });
+    const started = takeEarly(this.heapMb) ?? startChild(this.heapMb);
+    const child = started.child;
     this.child = child;
-    let stderr = '';
-    child.stderr?.on('data', (d: Buffer) => {
-      stderr = (stderr + d.toString()).slice(-4000);
-    });
-    this.ready = new Promise((resolve, reject) => {
-      const onReady = (m: unknown) => {
-        if (m && typeof m === 'object' && 'ready' in m) {
-          child.off('message', onReady);
-          resolve();
-        }
-      };
-      child.on('message', onReady);
-      child.once('exit', () => reject(new SandboxError('crash', 'the evaluator could not start')));
+    const stderr = started.stderr;
+    this.ready = started.ready.catch(() => {
+      throw new SandboxError('crash', 'the evaluator could not start');
     });
     this.ready.catch(() => {});
     child.on('message', (m: ChildReply | { ready: true }) => {
@@ -120,7 +92,7 @@ export class Sandbox {
       if (job && !this.closed) {
         this.busy = undefined;
         clearTimeout(this.timer);
-        const oom = /heap out of memory|Allocation failed|JavaScript heap/i.test(stderr) || code === 134 || signal === 'SIGABRT';
+        const oom = /heap out of memory|Allocation failed|JavaScript heap/i.test(stderr()) || code === 134 || signal === 'SIGABRT';
         job.reject(
           oom
             ? new SandboxError('memory', `the sheet used more than the ${this.heapMb} MiB memory limit; evaluation stopped`)
