@@ -185,4 +185,54 @@ describe('line charts', () => {
     expect(svg).toContain('<title>&lt;b&gt;</title>');
     expect(svg).not.toContain('<b>');
   });
+
+  it('keeps the eight palette colours in their order and starts again after them', () => {
+    expect(PALETTE).toEqual(['#1f5fa8', '#c0392b', '#2e7d32', '#8e44ad', '#d35400', '#00838f', '#6d4c41', '#455a64']);
+    const nine = linePlot({ ...base, series: Array.from({ length: 9 }, (_, k) => ({ name: `s${k}`, points: [[0, k], [10, k]] as Array<[number, number]> })) });
+    const colours = paths(nine).filter((d) => d.includes('stroke-width="1.4"')).map((d) => /stroke="([^"]+)"/.exec(d)![1]);
+    expect(colours).toEqual([...PALETTE, PALETTE[0]]);
+  });
+
+  it('a series of exactly 1200 points is drawn whole', () => {
+    const points: Array<[number, number]> = Array.from({ length: 1200 }, (_, i) => [i, i % 3]);
+    const d = paths(linePlot({ ...base, x: { label: 'x', min: 0, max: 1200 }, y: { label: 'y', min: 0, max: 2 }, series: [{ name: 's', points }] })).find((p) => p.includes('stroke-width="1.4"'))!;
+    expect(d.split('|')[0]!.match(/[ML]/g)!.length).toBe(1200);
+  });
+
+  it('thinning keeps each bucket\'s first lowest and first highest point, in x order', () => {
+    // The rule written out: 600 buckets of points.length/600 points each.
+    const points: Array<[number, number]> = Array.from({ length: 3000 }, (_, i) => [i, Math.round(10 * Math.sin(i / 7)) + (i === 1500 ? -40 : 0)]);
+    const want: Array<[number, number]> = [];
+    const size = points.length / 600;
+    for (let b = 0; b < 600; b++) {
+      const bucket = points.slice(Math.floor(b * size), Math.floor((b + 1) * size));
+      let lo = bucket[0]!;
+      let hi = bucket[0]!;
+      for (const q of bucket) {
+        if (q[1] < lo[1]) lo = q;
+        if (q[1] > hi[1]) hi = q;
+      }
+      want.push(...(lo[0] <= hi[0] ? [lo, hi] : [hi, lo]));
+    }
+    const x = { label: 'x', min: 0, max: 3000 };
+    const y = { label: 'y', min: -50, max: 10 };
+    const got = paths(linePlot({ ...base, x, y, series: [{ name: 's', points }] })).find((p) => p.includes('stroke-width="1.4"'))!.split('|')[0];
+    const drawn = paths(linePlot({ ...base, x, y, series: [{ name: 's', points: want }] })).find((p) => p.includes('stroke-width="1.4"'))!.split('|')[0];
+    expect(got).toBe(drawn);
+  });
+
+  it('on a log axis a range forced to start at zero starts a decade below its top, and one ending at zero a decade above its start', () => {
+    const ticksOf = (svg: string) => [...svg.matchAll(/y="268.0" text-anchor="middle" font-size="10">([^<]+)</g)].map((m) => m[1]);
+    expect(ticksOf(linePlot({ ...base, x: { label: 'x', scale: 'log', min: 0, max: 1000 } }))).toEqual(['100', '1000']);
+    expect(ticksOf(linePlot({ ...base, x: { label: 'x', scale: 'log', min: 5, max: 0 } }))).toEqual(['1', '10', '100']);
+    // Nine decades from 1e-3: a tick every second decade.
+    expect(ticksOf(linePlot({ ...base, x: { label: 'x', scale: 'log', min: 1e-3, max: 1e6 } }))).toEqual(['0.001', '0.1', '10', '1000', '100000']);
+  });
+
+  it('spreads a flat series of 5 to 4.5–5.5 and puts its ticks on whole steps of 0.2', () => {
+    const flat = linePlot({ ...base, y: { label: 'y' }, series: [{ name: 's', points: [[0, 5], [10, 5]] }] });
+    const yTicks = [...flat.matchAll(/text-anchor="end" font-size="10">([^<]+)<\/text>/g)].map((m) => m[1]);
+    expect(yTicks).toEqual(['4.4', '4.6', '4.8', '5', '5.2', '5.4', '5.6']);
+    expect(flat).toContain(text(X0 - 5, Y0 + 3.5, '4.4', 'text-anchor="end" font-size="10"'));
+  });
 });
