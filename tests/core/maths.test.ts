@@ -2,7 +2,7 @@
 // IEEE 754 double precision), with the unit rules of the language: sqrt halves the powers,
 // abs/min/max/sum/mean keep the unit, temperatures keep their sense.
 import { describe, expect, it } from 'vitest';
-import { list, num, shown, si, TradeError, type Value } from '../../server/core/index.js';
+import { list, num, shown, si, str, TradeError, type Value } from '../../server/core/index.js';
 import { mathsEntries } from '../../server/core/maths/entries.js';
 import { fromUnit } from '../../server/units/quantity.js';
 
@@ -32,6 +32,8 @@ describe('functions of plain numbers', () => {
     expect(() => call('ln', { x: num(0) })).toThrow('ln is not defined for this argument');
     expect(() => call('log10', { x: num(-1) })).toThrow('log10 is not defined for this argument');
     expect(() => call('ln', {})).toThrow('x must be a number or quantity');
+    expect(() => call('ln', { x: str('e') })).toThrow('x must be a number or quantity');
+    expect(() => call('log10', { x: num(0) })).toThrow('log10 is not defined for this argument');
   });
 });
 
@@ -41,6 +43,7 @@ describe('sqrt and abs', () => {
     expect(r.si).toBe(4);
     expect(r.dims).toEqual(si(1, 'm/s').dims);
     expect(() => call('sqrt', { x: num(-1) })).toThrow('sqrt of a negative value');
+    expect(q(call('sqrt', { x: num(0) })).si).toBe(0);
   });
 
   it('abs keeps the unit and a temperature difference stays one', () => {
@@ -59,6 +62,10 @@ describe('min and max', () => {
     expect(q(call('max', { values: list([si(3, 'm'), si(1, 'm'), si(2, 'm')]) })).si).toBe(3);
     expect(q(call('max', { values: list([num(1), list([num(7), num(2)])]) })).si).toBe(7);
     expect(q(call('min', { values: si(5, 'm'), _2: si(4, 'm') })).si).toBe(4);
+    // Of equal values the first is kept, unit and all; parameters left out are skipped.
+    expect(q(call('min', { values: list([fromUnit(1, 'km'), fromUnit(1000, 'm')]) })).unit?.text).toBe('km');
+    expect(q(call('max', { values: list([fromUnit(1, 'km'), fromUnit(1000, 'm')]) })).unit?.text).toBe('km');
+    expect(q(call('max', { values: si(5, 'm'), _2: undefined as unknown as Value })).si).toBe(5);
   });
 
   it('refuse mixed units, text, and nothing at all', () => {
@@ -85,6 +92,8 @@ describe('linspace', () => {
   it('refuses a count that is not a whole number from 2 to 100000, and mixed units', () => {
     const start = si(1, 'm');
     expect(() => call('linspace', { start, stop: si(2, 'm'), count: num(1) })).toThrow('count must be a whole number from 2 to 100000, not 1');
+    const two = call('linspace', { start, stop: si(2, 'm'), count: num(2) });
+    expect(two.kind === 'list' && two.items.map((i) => q(i).si)).toEqual([1, 2]);
     expect(() => call('linspace', { start, stop: si(2, 'm'), count: num(2.5) })).toThrow(/not 2.5/);
     expect(() => call('linspace', { start, stop: si(2, 'm'), count: num(100001) })).toThrow(/not 100001/);
     const long = call('linspace', { start, stop: si(2, 'm'), count: num(100000) });

@@ -3,9 +3,11 @@
 // checked against their sources in the other files); it is pinned so that a note
 // cannot go missing or change unseen.
 import { describe, expect, it } from 'vitest';
-import { list, num, shown, si, str, type Args, type RecordValue } from '../../server/core/index.js';
+import { list, num, shown, si, str, type Args, type RecordValue, type Value } from '../../server/core/index.js';
+import { unitLabel } from '../../server/units/labels.js';
 import { fluidEntries } from '../../server/core/fluids/entries.js';
 import { wallEntries } from '../../server/core/wall/entries.js';
+import { mathsEntries } from '../../server/core/maths/entries.js';
 
 const entries = [...fluidEntries, ...wallEntries];
 const csv = 'face,yplus,area\na,1,1\nb,3,1\n';
@@ -15,6 +17,12 @@ function call(name: string, args: Args): RecordValue {
   return v;
 }
 const notes = (r: RecordValue) => [...r.fields].map(([k, f]) => [k, f.note]);
+/** Each field's dimension as SI unit text ("" for plain numbers), or its kind when it is no quantity. */
+const units = (r: RecordValue) => Object.fromEntries([...r.fields].map(([k, f]) => [k, unitOf(f.value)]));
+function unitOf(v: Value): string {
+  if (v.kind === 'list') return `list of ${v.items.length ? unitOf(v.items[0]!) : 'nothing'}`;
+  return v.kind === 'quantity' ? unitLabel(v.dims) : v.kind;
+}
 const air = call('air', { T: shown(20, 'degC'), p: si(101325, 'Pa'), RH: shown(0, '%') });
 const FLUID_NOTES = [['rho', 'density'], ['mu', 'dynamic viscosity'], ['nu', 'kinematic viscosity']];
 
@@ -128,11 +136,36 @@ describe('near-wall records', () => {
   });
 });
 
+describe('the dimension of every field', () => {
+  const FLUID = { rho: 'kg/m^3', mu: 'Pa s', nu: 'm^2/s' };
+  it('fluids', () => {
+    expect(units(air)).toEqual({ ...FLUID, a: 'm/s', T: 'K', p: 'Pa' });
+    expect(units(call('atmosphere', { geometric: si(3, 'km') }))).toEqual({ T: 'K', p: 'Pa', ...FLUID, a: 'm/s', H: 'm', Z: 'm' });
+    expect(units(call('water', { T: shown(15, 'degC'), p: si(101325, 'Pa') }))).toEqual({ ...FLUID, T: 'K' });
+    expect(units(call('seawater', { T: shown(15, 'degC'), S: shown(35, 'g/kg') }))).toEqual({ ...FLUID, T: 'K', S: '' });
+    expect(units(call('fluid', { rho: si(870, 'kg/m^3'), mu: si(0.03, 'Pa s'), a: si(1300, 'm/s') }))).toEqual({ ...FLUID, a: 'm/s' });
+    expect(units(call('fluid', { rho: si(870, 'kg/m^3'), mu: si(0.03, 'Pa s') }))).toEqual(FLUID);
+    expect(units(call('flow_regime', { U: si(10, 'm/s'), L: si(1, 'm'), fluid: air }))).toEqual({ Re: '', Ma: '', q: 'Pa', regime: 'string' });
+  });
+
+  it('near-wall records', () => {
+    expect(units(call('boundary_layer', { U: si(10, 'm/s'), x: si(1, 'm'), fluid: air }))).toEqual({ Re_x: '', delta: 'm', delta_star: 'm', theta: 'm', regime: 'string' });
+    const cell = call('first_cell', { U: si(10, 'm/s'), L: si(1, 'm'), fluid: air, yplus: num(1), method: str('schlichting'), placement: str('height') });
+    expect(units(cell)).toEqual({ Re: '', cf: '', tau_w: 'Pa', u_tau: 'm/s', l_visc: 'm', height: 'm', centroid: 'm', band: 'string' });
+    const stack = call('layer_stack', { first: si(1e-5, 'm'), growth: num(1.2), count: num(10), core: si(1e-4, 'm'), delta: si(1e-3, 'm'), scale: str('linear') });
+    expect(units(stack)).toEqual({ first: 'm', growth: '', count: '', total: 'm', last: 'm', heights: 'list of m', jump: '', inside: '', coverage: '' });
+    const args = { path: str('x.csv'), column: str('yplus'), weight: str('area'), target: num(1), band: list([num(0.5), num(5)]), first: si(1e-5, 'm') };
+    const report = call('yplus_report', args);
+    expect(units(report)).toEqual({ count: '', min: '', max: '', mean: '', weighted_mean: '', p05: '', p50: '', p95: '', in_band: '', corrected_first: 'm' });
+    expect(report.fields.get('in_band')!.value).toMatchObject({ unit: { text: '%' } });
+  });
+});
+
 describe('every entry is documented', () => {
-  for (const f of entries) {
+  for (const f of [...mathsEntries, ...entries]) {
     it(`${f.name}: doc, source, example and a doc for each parameter`, () => {
       expect(f.doc.length).toBeGreaterThan(10);
-      expect(f.source.length).toBeGreaterThan(10);
+      expect(f.source.length).toBeGreaterThanOrEqual(10);
       expect(f.example.startsWith(`${f.name}(`)).toBe(true);
       for (const p of f.params) {
         expect(p.doc.length, `${f.name}.${p.name}`).toBeGreaterThan(3);
@@ -141,4 +174,27 @@ describe('every entry is documented', () => {
       }
     });
   }
+});
+
+describe('what the basic maths say of themselves', () => {
+  it('min and max name which end they pick; each function its source', () => {
+    const doc = (n: string) => mathsEntries.find((f) => f.name === n)!;
+    expect(doc('min').doc).toBe('the smallest of a list (units must agree)');
+    expect(doc('max').doc).toBe('the largest of a list (units must agree)');
+    expect(doc('min').example).toBe('min([3, 1, 2] m)');
+    expect(doc('exp').source).toBe('ECMAScript Math (IEEE 754 double precision)');
+    expect(mathsEntries.filter((f) => f.source === 'definition').map((f) => f.name)).toEqual(['sqrt', 'abs', 'min', 'max', 'linspace', 'sum', 'mean']);
+    expect(mathsEntries.map((f) => f.doc)).toEqual([
+      'square root (units take the half power)', 'absolute value (keeps the unit)', 'e to the power x', 'natural logarithm', 'base-10 logarithm',
+      'sine of an angle in radians (30 deg converts)', 'cosine of an angle in radians', 'tangent of an angle in radians',
+      'the smallest of a list (units must agree)', 'the largest of a list (units must agree)', 'evenly spaced values from start to stop, for sweeps',
+      'the sum of a list', 'the arithmetic mean of a list',
+    ]);
+    expect(mathsEntries.map((f) => f.example)).toEqual(['sqrt(4 m^2)', 'abs(-3 m/s)', 'exp(1)', 'ln(10)', 'log10(1e6)', 'sin(30 deg)', 'cos(pi/3)', 'tan(45 deg)', 'min([3, 1, 2] m)', 'max([3, 1, 2] m)', 'linspace(10 m/s, 40 m/s, 4)', 'sum([1, 2, 3] m)', 'mean([1, 2, 3] m)']);
+    expect(mathsEntries.flatMap((f) => f.params.map((p) => p.doc))).toEqual([
+      'argument', 'argument', 'argument', 'argument', 'argument', 'argument', 'argument', 'argument',
+      'a list, or several arguments', 'a list, or several arguments', 'first value', 'last value (same unit as start)', 'number of values, 2 to 100000',
+      'a list of numbers or quantities of one unit', 'a list of numbers or quantities of one unit',
+    ]);
+  });
 });
