@@ -255,7 +255,7 @@ const layer_stack: TradeFunction = {
       fields.push(['coverage', num(s.total / delta), 'stack thickness / δ']);
     }
     return record(fields, {
-      warnings: stackWarnings(s, core, delta, inside),
+      warnings: stackWarnings(s, core, delta === undefined ? undefined : { delta, inside: inside! }),
       remarks: stackRemarks(s, delta),
       figure: figure(stackSvg({ heights: s.heights, growth: s.growth, scale, ...(delta === undefined ? {} : { delta }), ...(core === undefined ? {} : { core }) }), `Wall-layer stack to scale (${scale} axis)`),
       tag: 'layer stack',
@@ -264,7 +264,7 @@ const layer_stack: TradeFunction = {
 };
 
 /** Rules of thumb (common practice): gentle growth, a small jump to the core, ten or more cells across δ. */
-function stackWarnings(s: Stack, core: number | undefined, delta: number | undefined, inside: number | undefined): string[] {
+function stackWarnings(s: Stack, core: number | undefined, layer: { delta: number; inside: number } | undefined): string[] {
   const w: string[] = [];
   if (s.growth > STACK_LIMITS.growth) w.push(`growth ratio ${numberText(s.growth)} is above about ${STACK_LIMITS.growth} (common practice); neighbouring layers differ too much in size.`);
   if (s.growth < 1) w.push(`growth ratio ${numberText(s.growth)} is below 1: the layers get thinner away from the wall.`);
@@ -277,7 +277,8 @@ function stackWarnings(s: Stack, core: number | undefined, delta: number | undef
   if (core !== undefined && core / s.last > STACK_LIMITS.jump) {
     w.push(`the core cell is ${numberText(core / s.last)} × the last layer, above about ${STACK_LIMITS.jump} (common practice); add layers or shrink the core cells near the wall.`);
   }
-  if (delta !== undefined && inside !== undefined) {
+  if (layer) {
+    const { delta, inside } = layer;
     // Core cells above the stack also lie across δ when the stack is thinner than δ.
     const across = inside + (core !== undefined && s.total < delta ? (delta - s.total) / core : 0);
     if (across < STACK_LIMITS.cellsAcross) {
