@@ -33,7 +33,7 @@ export const MACH_HYPERSONIC = 5;
 
 /** Warnings about compressibility, or none at or below Ma 0.3. */
 export function compressibilityWarnings(Ma: number): string[] {
-  const ma = numberText(Ma, { digits: 3 });
+  const ma = numberText(Ma);
   if (Ma >= MACH_HYPERSONIC) {
     return [`Ma = ${ma}: hypersonic flow, far outside an incompressible set-up (check the speed and its unit); shocks and real-gas effects need a compressible, high-temperature model`];
   }
