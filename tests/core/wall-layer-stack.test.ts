@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { num, si, str, TradeError } from '../../server/core/index.js';
-import { seriesSum, solveStack } from '../../server/core/wall/layer-stack.js';
+import { layersInside, seriesSum, solveStack } from '../../server/core/wall/layer-stack.js';
 import { asRecord, call, relErr, siField } from './wall-helpers.js';
 
 // Finite geometric series (standard algebra): Σ_{i<n} y1 g^i = y1 (g^n − 1)/(g − 1); last term y1 g^(n−1).
@@ -90,6 +90,25 @@ describe('layer stack as a geometric series', () => {
     // growth 0.5: the sum approaches 2 first layers; 1.75 first is three layers.
     expect(solveStack({ first: Y1, growth: 0.5, total: 1.75 * Y1 }).count).toBe(3);
     expect(() => solveStack({ first: Y1, growth: 0.5, total: 2 * Y1 })).toThrow('with growth 0.5 the layers shrink and their sum never passes 2 × first, short of the total');
+  });
+
+  it('a uniform stack is count × first thick, and its growth is exactly 1', () => {
+    expect(solveStack({ first: Y1, growth: 1, count: 7 }).total).toBe(7 * Y1);
+    expect(solveStack({ first: Y1, count: 12, total: 12 * Y1 }).growth).toBe(1);
+    expect(solveStack({ growth: G, count: N, total: TOTAL }).solved).toBe('first');
+  });
+
+  it('refuses a count that rounds to no layer, a total no more than first, and says where shrinking layers stop', () => {
+    expect(() => solveStack({ first: Y1, growth: G, count: 1e-10 })).toThrow('count must be a whole number of layers, not 1e-10');
+    expect(() => solveStack({ first: Y1, count: 3, total: Y1 })).toThrow('total must be more than first when there are 3 layers');
+    // growth 0.7: the sum approaches 1/(1 − 0.7) = 3.333 first layers.
+    expect(() => solveStack({ first: Y1, growth: 0.7, total: 4 * Y1 })).toThrow('with growth 0.7 the layers shrink and their sum never passes 3.333 × first, short of the total');
+  });
+
+  it('counts a layer whose top meets the boundary-layer edge as inside it, float noise and all', () => {
+    // Five layers of 1 mm sum to 5.000000000000001 mm in floating point; δ = 5 mm holds all five.
+    expect(layersInside([1e-3, 1e-3, 1e-3, 1e-3, 1e-3], 5e-3)).toBe(5);
+    expect(layersInside([1e-3, 1e-3, 1e-3, 1e-3, 1e-3], 4.999e-3)).toBe(4);
   });
 
   it('refuses anything but exactly three of the four, and impossible stacks', () => {
