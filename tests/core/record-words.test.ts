@@ -113,7 +113,7 @@ describe('near-wall records', () => {
     expect(r.tag).toBe('layer stack');
     expect(r.remarks).toEqual(['Solved for total.', 'The stack covers 26 % of δ; the rest of the boundary layer lies in the core mesh.']);
     const past = call('layer_stack', { first: si(1e-5, 'm'), growth: num(1.2), count: num(10), delta: si(1e-4, 'm'), scale: str('linear') });
-    expect(past.remarks[1]).toBe('The stack reaches past the boundary-layer edge (260 % of δ).');
+    expect(past.remarks[1]).toBe('The stack reaches the boundary-layer edge and past it (260 % of δ).');
     const rounded = call('layer_stack', { first: si(1e-5, 'm'), growth: num(1.2), total: si(3e-4, 'm'), scale: str('linear') });
     // Eleven layers, the first count whose sum passes 300 µm: 10 µm (1.2^11 − 1)/0.2 (geometric series), at three figures.
     const eleven = Number(((10 * (1.2 ** 11 - 1)) / 0.2).toPrecision(3));

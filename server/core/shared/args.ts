@@ -83,7 +83,7 @@ export function siListArg(args: Args, name: string, unit = '1'): number[] {
 }
 
 /** A field of a record as an SI number, or undefined when the record lacks it. */
-export function fieldSi(r: RecordValue, field: string, unit = '1'): number | undefined {
+export function fieldSi(r: RecordValue, field: string, unit: string): number | undefined {
   const f = r.fields.get(field);
   return f ? siOf(f.value, unit, field) : undefined;
 }

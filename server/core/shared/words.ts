@@ -15,6 +15,7 @@ export interface NumberStyle {
  */
 export function numberText(x: number, style: NumberStyle = {}): string {
   const digits = style.digits ?? 3;
+  // Stryker disable next-line EqualityOperator: x is ±infinity here, never 0 (equivalent)
   if (!Number.isFinite(x)) return Number.isNaN(x) ? 'not a number' : x > 0 ? 'infinity' : '−infinity';
   if (x === 0) return '0';
   const a = Math.abs(x);
@@ -27,7 +28,8 @@ export function numberText(x: number, style: NumberStyle = {}): string {
 
 function exponentText(x: number, digits: number): string {
   const [mantissa, exponent] = x.toExponential(Math.max(0, digits - 1)).split('e');
-  const m = mantissa!.includes('.') ? mantissa!.replace(/0+$/, '').replace(/\.$/, '') : mantissa!;
+  // A mantissa without a point has one non-zero digit, so stripping trailing zeros is safe either way.
+  const m = mantissa!.replace(/0+$/, '').replace(/\.$/, '');
   return `${m}e${exponent!.replace('+', '')}`;
 }
 

@@ -37,7 +37,7 @@ export function boundaryLayer(U: number, x: number, nu: number): BoundaryLayer {
   }
   if (Re_x > POWER_LAW_MAX) {
     warnings.push(
-      `Re_x = ${numberText(Re_x, { notation: 'sci' })} is above ${numberText(POWER_LAW_MAX, { notation: 'sci' })}, the upper end of the one-seventh power law (Schlichting, Eq. 21.12); δ is an estimate.`,
+      `Re_x = ${numberText(Re_x)} is above ${numberText(POWER_LAW_MAX)}, the upper end of the one-seventh power law (Schlichting, Eq. 21.12); δ is an estimate.`,
     );
   }
   const delta = 0.37 * x * Math.pow(Re_x, -0.2);

@@ -127,6 +127,6 @@ export function skinFriction(re: number, method: SkinFrictionMethod, kind: SkinF
   if (m.regime === 'laminar' && !isLaminar(re)) {
     warnings.push(`Re = ${at} is at or above ${transition}, where the boundary layer is usually turbulent (common practice); use a turbulent method such as "schlichting".`);
   }
-  if (m.max && re > m.max.re) warnings.push(`Re = ${at} is above ${numberText(m.max.re, { notation: 'sci' })} for the ${method} formula: ${m.max.why}.`);
+  if (m.max && re > m.max.re) warnings.push(`Re = ${at} is above ${numberText(m.max.re)} for the ${method} formula: ${m.max.why}.`);
   return { cf, kind, source: formula.source, regime: m.regime, warnings };
 }
