@@ -18,8 +18,9 @@ describe('fluid words', () => {
   });
 
   it('humid air says its vapour pressure to four figures', () => {
-    const r = fluid('air', { T: shown(20, 'degC'), p: si(101325, 'Pa'), RH: shown(50, '%') });
-    const pv = 0.5 * saturationPressure(293.15);
+    // At 40 % the vapour pressure, 935.7 Pa, reads differently at three figures and at four.
+    const r = fluid('air', { T: shown(20, 'degC'), p: si(101325, 'Pa'), RH: shown(40, '%') });
+    const pv = 0.4 * saturationPressure(293.15);
     expect(r.kind === 'record' && r.remarks[1]).toContain(`p_v = RH · p_sat(T) = ${Number(pv.toPrecision(4))} Pa with p_sat`);
   });
 
@@ -75,6 +76,9 @@ describe('near-wall words', () => {
     ]);
     // 1 + 2 + 4 = 7 first layers: the count is exact, so there is nothing rounded to say.
     expect(s({ first: si(1e-3, 'm'), growth: num(2), total: si(7e-3, 'm') }).remarks).toEqual(['Solved for count.']);
+    // Asked for a hair less than 7 mm: rounded up to the same three layers, and 7 mm either way as shown.
+    expect(s({ first: si(1e-3, 'm'), growth: num(2), total: si(6.9999e-3, 'm') }).remarks).toEqual(['Solved for count.']);
+    expect(s({ first: si(1e-3, 'm'), growth: num(2), total: si(6.9e-3, 'm') }).remarks).toEqual(['Solved for count.', 'The count is rounded up to whole layers, so the stack is 7 mm thick rather than the 6.9 mm asked for.']);
     // Exactly δ: it reaches the edge, no further.
     expect(s({ first: si(1e-3, 'm'), growth: num(1), count: num(5), delta: si(5e-3, 'm') }).remarks[1]).toBe('The stack reaches the boundary-layer edge (100 % of δ).');
     expect(() => s({ first: si(1e-3, 'm'), count: num(5), growth: si(1, 'm') })).toThrow('growth must be a plain number, not a quantity in m');

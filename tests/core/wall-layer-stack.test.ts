@@ -92,7 +92,8 @@ describe('layer stack as a geometric series', () => {
     expect(() => solveStack({ first: Y1, growth: 0.5, total: 2 * Y1 })).toThrow('with growth 0.5 the layers shrink and their sum never passes 2 × first, short of the total');
   });
 
-  it('a uniform stack is count × first thick, and its growth is exactly 1', () => {
+  it('a uniform stack is count × first thick, and its growth is exactly 1 within 1e-12 of count', () => {
+    expect(solveStack({ first: 1, count: 12, total: 12 * (1 + 5e-13) }).growth).toBe(1);
     expect(solveStack({ first: Y1, growth: 1, count: 7 }).total).toBe(7 * Y1);
     expect(solveStack({ first: Y1, count: 12, total: 12 * Y1 }).growth).toBe(1);
     expect(solveStack({ growth: G, count: N, total: TOTAL }).solved).toBe('first');

@@ -73,6 +73,7 @@ function checkPositive(given: StackGiven): void {
 
 function wholeCount(count: number): number {
   const n = Math.round(count);
+  // Stryker disable next-line EqualityOperator: a count exactly 1e-9 from a whole number does not arise but by chance (equivalent)
   if (Math.abs(count - n) > 1e-9 || n < 1) throw new TradeError(`count must be a whole number of layers, not ${count}`);
   if (n > MAX_LAYERS) throw new TradeError(`count ${n} is more than the ${MAX_LAYERS} layers a stack may have`);
   return n;
@@ -157,6 +158,7 @@ export function layersInside(heights: readonly number[], delta: number): number 
   let inside = 0;
   for (const h of heights) {
     top += h;
+    // Stryker disable next-line EqualityOperator: a top exactly at δ(1 + 1e-12) does not arise but by chance (equivalent)
     if (top > delta * (1 + 1e-12)) break;
     inside++;
   }
