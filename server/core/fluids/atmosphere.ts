@@ -31,9 +31,7 @@ export function standardAtmosphere(H: number): AtmosphereState {
   if (!(H >= 0 && H <= GEOPOTENTIAL_TOP)) {
     throw new TradeError(`atmosphere() covers geopotential altitudes from 0 to 20 km; got geopotential = ${exactText(H)} m`);
   }
-  // Stryker disable next-line EqualityOperator: both branches give T(11 km) = 216.65 K, so < and <= agree (equivalent)
   const T = H <= H_TROPOPAUSE ? ISA_T0 - LAPSE * H : ISA_T0 - LAPSE * H_TROPOPAUSE;
-  // Stryker disable next-line EqualityOperator: both branches give p(11 km), the isothermal one times exp(0) (equivalent)
   const p = H <= H_TROPOPAUSE ? troposphereP(H) : troposphereP(H_TROPOPAUSE) * Math.exp((-ISA_G0 * (H - H_TROPOPAUSE)) / (R_AIR * T));
   const { rho, mu, nu, a } = airProperties(T, p, 0);
   return { T, p, rho, mu, nu, a };

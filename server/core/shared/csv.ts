@@ -24,14 +24,11 @@ const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
 /** The delimiter seen most often in the header line, outside quotes. */
 export function detectDelimiter(text: string): Delimiter {
-  // Stryker disable next-line StringLiteral: text with no non-blank line has no delimiters either way, and is refused as empty later (equivalent)
   const header = text.split(/\r?\n/).find((l) => l.trim() !== '') ?? '';
-  // Stryker disable next-line StringLiteral: what replaces a quoted name holds no delimiter either way (equivalent)
   const unquoted = header.replace(/"[^"]*"/g, '');
   let best: Delimiter = ',';
   let most = 0;
   for (const d of DELIMITERS) {
-    // Stryker disable next-line ArithmeticOperator: adding the same 2 to every count picks the same delimiter (equivalent)
     const n = unquoted.split(d).length - 1;
     if (n > most) {
       best = d;
@@ -42,7 +39,6 @@ export function detectDelimiter(text: string): Delimiter {
 }
 
 export function readDelimited(text: string): DelimitedTable {
-  // Stryker disable next-line Regex: a byte-order mark past the start is trimmed from its cell anyway (equivalent)
   const body = text.replace(/^\uFEFF/, '');
   const delimiter = detectDelimiter(body);
   let records: { record: string[]; info: { lines: number } }[];
@@ -74,7 +70,6 @@ export function columnList(table: DelimitedTable): string {
 /** A cell as a number, or a TradeError naming its row and column. */
 export function numberCell(table: DelimitedTable, row: DelimitedRow, column: number): number {
   const name = table.header[column] ?? `${column + 1}`;
-  // Stryker disable next-line MethodExpression: csv-parse has trimmed every cell already (trim: true) (equivalent)
   const t = (row.cells[column] ?? '').trim();
   if (t === '') throw new TradeError(`row ${row.row}: the cell in column ${name} is empty`);
   const s = table.delimiter !== ',' ? t.replace(',', '.') : t;

@@ -70,7 +70,6 @@ export function linePlot(p: LinePlot): string {
   const top = y1 + legendRows * 13;
   const xs = p.series.flatMap((s) => s.points.map((q) => q[0]));
   const ys = p.series.flatMap((s) => s.points.map((q) => q[1]));
-  // Stryker disable next-line ArrayDeclaration: a stray item would add an undefined value, which mapAxis drops as not finite (equivalent)
   for (const r of p.references ?? []) (r.axis === 'x' ? xs : ys).push(r.at);
   const xm = mapAxis(p.x, xs, x0, x1);
   const ym = mapAxis(p.y, ys, y0, top);
@@ -145,7 +144,6 @@ function drawable(q: readonly [number, number], p: LinePlot): boolean {
 
 /** Keeps a long series to MAX_POINTS points, each bucket's lowest and highest kept so spikes stay visible. */
 function thin(points: ReadonlyArray<readonly [number, number]>): ReadonlyArray<readonly [number, number]> {
-  // Stryker disable next-line EqualityOperator: thinning exactly MAX_POINTS points keeps each bucket's two points in x order, the same series (equivalent)
   if (points.length <= MAX_POINTS) return points;
   const buckets = MAX_POINTS / 2;
   const size = points.length / buckets;
@@ -160,7 +158,6 @@ function thin(points: ReadonlyArray<readonly [number, number]>): ReadonlyArray<r
       if (q[1] < lo[1]) lo = q;
       if (q[1] > hi[1]) hi = q;
     }
-    // Stryker disable next-line EqualityOperator: equal x means the same point, pushed twice either way (equivalent)
     if (lo[0] <= hi[0]) out.push(lo, hi);
     else out.push(hi, lo);
   }
@@ -192,7 +189,6 @@ function mapAxis(a: Axis, values: number[], from: number, to: number): Mapped {
   const tlo = a.min ?? Math.floor(lo / step) * step;
   const thi = a.max ?? Math.ceil(hi / step) * step;
   const ticks: number[] = [];
-  // Stryker disable next-line EqualityOperator: the last tick is thi within rounding; < and <= differ only at exactly thi + step 1e-9 (equivalent)
   for (let t = Math.ceil(tlo / step) * step; t <= thi + step * 1e-9; t += step) ticks.push(Number(t.toPrecision(12)));
   const at = (v: number) => from + ((v - tlo) / (thi - tlo)) * (to - from);
   return { at, ticks, lo: tlo, hi: thi };

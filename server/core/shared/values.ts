@@ -59,7 +59,6 @@ export interface FigureValue {
 export type { Quantity };
 
 /** A quantity from an SI number, e.g. si(1.225, 'kg/m^3'); the unit fixes the dimension. */
-// Stryker disable next-line StringLiteral: '' and '1' both read as a plain number (equivalent)
 export function si(value: number, unit = '1'): Quantity {
   const u = parseUnit(unit);
   if (u.offset !== 0) throw new Error(`si() takes SI units, not ${unit}`);

@@ -15,7 +15,6 @@ export interface NumberStyle {
  */
 export function numberText(x: number, style: NumberStyle = {}): string {
   const digits = style.digits ?? 3;
-  // Stryker disable next-line EqualityOperator: x is ±infinity here, never 0 (equivalent)
   if (!Number.isFinite(x)) return Number.isNaN(x) ? 'not a number' : x > 0 ? 'infinity' : '−infinity';
   if (x === 0) return '0';
   const a = Math.abs(x);

@@ -47,7 +47,6 @@ const LOG_LAYER_TOP = 300;
 
 /** The flat-plate formulas are incompressible: say so when the fluid's speed of sound puts the flow above Ma 0.3. */
 function incompressibleOnly(U: number, fluid: FluidProps, what: string): string[] {
-  // Stryker disable next-line ConditionalExpression: without a speed of sound U/a is NaN and no warning follows anyway (equivalent); kept to say so plainly
   if (fluid.a === undefined) return [];
   return compressibilityWarnings(U / fluid.a).map((w) => `${w}; the flat-plate formulas here are for incompressible flow, so ${what} is only a rough estimate.`);
 }
@@ -205,7 +204,6 @@ const friction_velocity: TradeFunction = {
   compute(args, ctx) {
     const { nu } = fluidArg(args);
     const r = frictionVelocity(siArg(args, 'U_p', 'm/s'), siArg(args, 'y_p', 'm'), nu);
-    // Stryker disable next-line EqualityOperator: a solved y+ of exactly 300 does not arise but by chance (equivalent)
     if (r.yplus > LOG_LAYER_TOP) ctx.warn(`the sample sits at y+ ${numberText(r.yplus)}, beyond the log layer (about ${LOG_LAYER_TOP}, common practice); u_τ is an estimate.`);
     return si(r.u_tau, 'm/s');
   },
@@ -276,14 +274,12 @@ function stackWarnings(s: Stack, core: number | undefined, layer: { delta: numbe
         `check first, growth and total (${lengthText(s.total)}): a total past the boundary layer belongs to the core mesh.`,
     );
   }
-  // Stryker disable next-line ConditionalExpression: without a core cell core / last is NaN and the comparison false anyway (equivalent)
   if (core !== undefined && core / s.last > STACK_LIMITS.jump) {
     w.push(`the core cell is ${numberText(core / s.last)} × the last layer, above about ${STACK_LIMITS.jump} (common practice); add layers or shrink the core cells near the wall.`);
   }
   if (layer) {
     const { delta, inside } = layer;
     // Core cells above the stack also lie across δ when the stack is thinner than δ.
-    // Stryker disable next-line EqualityOperator: at s.total = delta the core cells add (delta − total)/core = 0 either way (equivalent)
     const across = inside + (core !== undefined && s.total < delta ? (delta - s.total) / core : 0);
     if (across < STACK_LIMITS.cellsAcross) {
       w.push(`only about ${Math.floor(across)} cells lie across the boundary layer (δ = ${lengthText(delta)}); about ${STACK_LIMITS.cellsAcross} or more are usual (common practice).`);
@@ -336,7 +332,6 @@ const yplus_report: TradeFunction = {
     const first = optionalSi(args, 'first', 'm');
     if (first !== undefined && !(first > 0)) throw new TradeError('first must be a positive length');
 
-    // Stryker disable next-line ConditionalExpression,StringLiteral: an empty name reads no column either way, and says nothing of a missing one (equivalent)
     const weight = weightName === '' || weightName.toLowerCase() === 'none' ? undefined : weightName;
     const samples = readWallSamples(ctx.readData(path), column, weight);
     const st = yplusStats(samples.values, samples.weights, band);

@@ -52,7 +52,6 @@ export function histogramSvg(h: HistogramInput): string {
     body.push(`<rect x="${px(bandL)}" y="${px(Y1)}" width="${px(bandR - bandL)}" height="${px(Y0 - Y1)}" fill="#dcefd6"/>`);
     body.push(text((bandL + bandR) / 2, Y1 - 4, `band ${numberText(h.band[0])}–${numberText(h.band[1])}`, 'text-anchor="middle" fill="#2f6b2a" font-size="9"'));
   }
-  // Stryker disable next-line EqualityOperator: the top tick is yTop within rounding (equivalent)
   for (let t = 0; t <= yTop * (1 + 1e-9); t += yStep) {
     body.push(`<path d="M${px(X0 - 4)} ${px(yAt(t))}H${px(X0)}" stroke="#555555" stroke-width="0.8"/>`);
     body.push(text(X0 - 6, yAt(t) + 3, `${numberText(t)} %`, 'text-anchor="end" font-size="9"'));
@@ -96,7 +95,6 @@ function xTicks(lo: number, hi: number, log: boolean): number[] {
     return out;
   }
   const step = niceStep(hi - lo);
-  // Stryker disable next-line EqualityOperator: the last tick is hi within rounding (equivalent)
   for (let t = Math.ceil(lo / step) * step; t <= hi * (1 + 1e-9); t += step) out.push(Number(t.toPrecision(12)));
   return out;
 }

@@ -23,10 +23,8 @@ export function spaldingUplus(yplus: number, kappa = KAPPA, b = B): number {
   if (!(Number.isFinite(yplus) && yplus >= 0)) throw new TradeError(`y+ must be zero or positive, not ${exactText(yplus)}`);
   let lo = 0;
   let hi = yplus;
-  // Stryker disable next-line EqualityOperator,ConditionalExpression,LogicalOperator,ArithmeticOperator,UpdateOperator: the stopping rule of a bisection; any of these changes stops it at the same root, or 200 steps later at it (equivalent)
   for (let i = 0; i < 200 && hi - lo > 1e-15 * hi; i++) {
     const mid = 0.5 * (lo + hi);
-    // Stryker disable next-line EqualityOperator: < and <= differ only where the two sides are exactly equal, where either half holds the root (equivalent)
     if (spaldingYplus(mid, kappa, b) < yplus) lo = mid;
     else hi = mid;
   }
@@ -46,10 +44,8 @@ export function frictionVelocity(Up: number, yp: number, nu: number, kappa = KAP
   const g = (u: number) => u * spaldingYplus(u, kappa, b) - rep;
   let lo = 0;
   let hi = Math.sqrt(rep); // u+·y+ ≥ u+², so the root is at most √Re_p
-  // Stryker disable next-line EqualityOperator,ConditionalExpression,LogicalOperator,ArithmeticOperator,UpdateOperator: the stopping rule of a bisection; any of these changes stops it at the same root, or 200 steps later at it (equivalent)
   for (let i = 0; i < 300 && hi - lo > 1e-15 * hi; i++) {
     const mid = 0.5 * (lo + hi);
-    // Stryker disable next-line EqualityOperator: < and <= differ only where the two sides are exactly equal, where either half holds the root (equivalent)
     if (g(mid) < 0) lo = mid;
     else hi = mid;
   }

@@ -73,7 +73,6 @@ function checkPositive(given: StackGiven): void {
 
 function wholeCount(count: number): number {
   const n = Math.round(count);
-  // Stryker disable next-line EqualityOperator: a count exactly 1e-9 from a whole number does not arise but by chance (equivalent)
   if (Math.abs(count - n) > 1e-9 || n < 1) throw new TradeError(`count must be a whole number of layers, not ${count}`);
   if (n > MAX_LAYERS) throw new TradeError(`count ${n} is more than the ${MAX_LAYERS} layers a stack may have`);
   return n;
@@ -110,42 +109,33 @@ function solveCount(first: number, growth: number, total: number): number {
  */
 export function solveGrowth(ratio: number, n: number): number {
   if (n === 1) {
-    // Stryker disable next-line EqualityOperator: a tolerance test; < and <= differ only at exactly 1e-12 (equivalent)
     if (Math.abs(ratio - 1) < 1e-12) return 1;
     throw new TradeError('a single layer has no growth ratio unless total equals first');
   }
   if (ratio <= 1) throw new TradeError(`total must be more than first when there are ${n} layers`);
-  // Stryker disable next-line EqualityOperator: a tolerance test; < and <= differ only at exactly 1e-12 n (equivalent)
   if (Math.abs(ratio - n) <= 1e-12 * n) return 1;
   const f = (g: number) => seriesSum(g, n) - ratio;
   let lo: number;
   let hi: number;
-  // Stryker disable next-line EqualityOperator: ratio = n has returned above, so > and >= agree (equivalent)
   if (ratio > n) {
     lo = 1;
     hi = 2;
-    // Stryker disable next-line EqualityOperator: < and <= differ only where the two sides are exactly equal, where either half holds the root (equivalent)
     while (f(hi) < 0) {
       lo = hi;
       hi *= 2;
-      // Stryker disable next-line EqualityOperator: hi doubles from 2 and is never exactly 1e6 (equivalent)
       if (hi > 1e6) throw new TradeError('no growth ratio below 1e6 reaches that total');
     }
   } else {
     hi = 1;
     lo = 0.5;
-    // Stryker disable next-line EqualityOperator: < and <= differ only where the two sides are exactly equal, where either half holds the root (equivalent)
     while (f(lo) > 0) {
       hi = lo;
       lo /= 2;
-      // Stryker disable next-line EqualityOperator: lo halves from 0.5 and is never exactly 1e-12 (equivalent)
       if (lo < 1e-12) throw new TradeError('no positive growth ratio gives that total');
     }
   }
-  // Stryker disable next-line EqualityOperator,ConditionalExpression,LogicalOperator,ArithmeticOperator,UpdateOperator: the stopping rule of a bisection; any of these changes stops it at the same root, or 200 steps later at it (equivalent)
   for (let i = 0; i < 200 && hi - lo > 1e-15 * hi; i++) {
     const mid = 0.5 * (lo + hi);
-    // Stryker disable next-line EqualityOperator: < and <= differ only where the two sides are exactly equal, where either half holds the root (equivalent)
     if (f(mid) < 0) lo = mid;
     else hi = mid;
   }
@@ -158,7 +148,6 @@ export function layersInside(heights: readonly number[], delta: number): number 
   let inside = 0;
   for (const h of heights) {
     top += h;
-    // Stryker disable next-line EqualityOperator: a top exactly at δ(1 + 1e-12) does not arise but by chance (equivalent)
     if (top > delta * (1 + 1e-12)) break;
     inside++;
   }

@@ -41,7 +41,6 @@ export function stackSvg(p: StackPicture): string {
   const lines: string[] = [];
   for (const t of tops.slice(0, -1)) {
     const yy = map.at(t);
-    // Stryker disable next-line EqualityOperator: a gap of exactly 0.8 px, where < and <= differ, does not arise but by chance (equivalent)
     if (lastLine - yy < MIN_LINE_GAP) {
       skipped++;
       continue;
@@ -93,7 +92,6 @@ const LABEL_GAP = 12;
  */
 function placeLabels(labels: Label[]): Label[] {
   const fixed = labels.filter((l) => !l.optional);
-  // Stryker disable next-line EqualityOperator: labels exactly 12 px apart, where >= and > differ, do not arise but by chance (equivalent)
   const kept = labels.filter((l) => !l.optional || fixed.every((f) => Math.abs(f.y - l.y) >= LABEL_GAP));
   const placed = [...kept].sort((a, b) => b.y - a.y).map((l) => ({ ...l }));
   let floor = WALL + 6; // the wall's own label
@@ -112,7 +110,6 @@ function linearMap(upper: number): AxisMap {
   const step = niceStep(upper);
   const top = Math.ceil((upper * 1.02) / step) * step;
   const ticks: number[] = [];
-  // Stryker disable next-line EqualityOperator: the top tick is top within rounding (equivalent)
   for (let t = 0; t <= top * (1 + 1e-9); t += step) ticks.push(t);
   return { at: (y) => WALL - (y / top) * (WALL - TOP), ticks };
 }
@@ -141,7 +138,6 @@ function axis(map: AxisMap, scale: StackScale): string[] {
 
 function wallLine(): string[] {
   const hatch: string[] = [];
-  // Stryker disable next-line EqualityOperator: x runs 76, 84, … and never equals 258 (equivalent)
   for (let x = LEFT - 8; x < RIGHT + 8; x += 8) hatch.push(`M${px(x)} ${px(WALL + 8)}L${px(x + 8)} ${px(WALL)}`);
   return [
     `<path d="M${px(LEFT - 8)} ${px(WALL)}H${px(RIGHT + 8)}" stroke="#222222" stroke-width="2" fill="none"/>`,
