@@ -3,6 +3,7 @@
 import { mkdir, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { benchColdStart, printColdStart } from './cold-start.js';
 import { benchConvergence, printConvergence } from './convergence.js';
 import { benchDomain, printDomain } from './domain.js';
 import { benchLive, printLive } from './live.js';
@@ -11,11 +12,16 @@ import { benchFairness, printFairness } from './fairness.js';
 
 const out = path.join(path.dirname(fileURLToPath(import.meta.url)), 'out');
 // WAKESHEET_BENCH_ONLY picks some of them, as a comma list: live (or demo, or
-// large, its two sheets), domain, convergence, memory, fairness.
+// large, its two sheets), start, domain, convergence, memory, fairness.
 const only = process.env.WAKESHEET_BENCH_ONLY?.split(',');
 const runs = (name: string, ...aliases: string[]) => !only || only.includes(name) || aliases.some((a) => only.includes(a));
 await mkdir(out, { recursive: true });
 const save = (name: string, figures: unknown) => writeFile(path.join(out, `${name}.json`), JSON.stringify({ at: new Date().toISOString(), [name]: figures }, null, 2));
+if (runs('start')) {
+  const coldStart = benchColdStart();
+  printColdStart(coldStart);
+  await save('coldStart', coldStart);
+}
 if (runs('memory')) {
   const memory = benchMemory();
   printMemory(memory);

@@ -1,9 +1,15 @@
 #!/usr/bin/env node
-// Runs the compiled CLI (npm install builds dist/ through the prepare script).
 // The exit code is set, not forced: process.exit() would cut off output still
 // on its way to a pipe (stdout to a pipe is asynchronous), so the process ends
 // by itself once everything it printed has been written.
-import { main } from '../dist/server/cli/main.js';
+
+// A command that evaluates sheets starts its evaluator process first thing, so
+// that the evaluator's start-up overlaps this process loading the command line.
+const args = process.argv.slice(2);
+if (['eval', 'check', 'render', 'verify', 'export'].includes(args[0]) && !args.includes('--help') && !args.includes('-h')) {
+  (await import('../dist/server/sandbox/spawn.js')).startEarly();
+}
+const { main } = await import('../dist/server/cli/main.js');
 
 // A reader that stops early (`| head`) is not an error of ours.
 for (const stream of [process.stdout, process.stderr]) {
@@ -20,7 +26,7 @@ function finish(code) {
   process.stdout.write('', () => process.stderr.write('', flushed));
 }
 
-main(process.argv.slice(2)).then(finish, (err) => {
+main(args).then(finish, (err) => {
   console.error(err instanceof Error ? err.stack : err);
   finish(70);
 });

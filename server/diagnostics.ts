@@ -14,6 +14,7 @@ export const ERROR_CODES = {
   'unknown-name': 'a name is used but never defined',
   'unknown-function': 'a call names no trade function',
   'unknown-unit': 'a unit name is not known',
+  'ambiguous-unit': 'a word after a number is both a unit and a name defined on the sheet',
   'unit-mismatch': 'the dimensions of two operands do not fit',
   'bad-argument': 'a trade function was given a wrong or missing argument',
   redefined: 'a name is defined a second time',

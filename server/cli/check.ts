@@ -1,7 +1,7 @@
 // `wakesheet check [DIR]`: every sheet under DIR, one line per failure.
 import { existsSync, statSync } from 'node:fs';
 import { dirname, relative, resolve } from 'node:path';
-import { countText } from '../core/index.js';
+import { countText } from '../core/shared/words.js';
 import { findSheets } from '../read/sheet-files.js';
 import { colour, overridesOf, parseArgs, runOne, Sandbox, sheetArgument, UsageError } from './shared.js';
 
@@ -12,7 +12,7 @@ Prints one line per failed check or error as file:line: message, and exits 1
 if there is any. --set U_inf=20m/s (repeatable) replaces an input for this run
 in every sheet that defines it; a name no sheet defines is an error.`;
 
-export async function checkCommand(argv: string[]): Promise<number> {
+export async function checkCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const parsed = parseArgs(argv, { flags: { set: 'repeat' } });
   const { positional } = parsed;
   const overrides = overridesOf(parsed);
@@ -23,14 +23,13 @@ export async function checkCommand(argv: string[]): Promise<number> {
   if (one) sheetArgument(target, 'check');
   const dir = one ? dirname(target) : target;
   const files = one ? [target] : findSheets(dir);
-  const sandbox = new Sandbox();
   let bad = 0;
   let sheets = 0;
   const taken = new Set<string>();
   try {
     for (const file of files) {
       sheets++;
-      const extra = overrides ? { overrides, overridesElsewhere: !one } : {};
+      const extra = { ...(overrides ? { overrides, overridesElsewhere: !one } : {}), render: false };
       const { result: r } = await runOne(sandbox, file, dir, undefined, extra);
       for (const name of r.overridesMatched) taken.add(name);
       const rel = relative(process.cwd(), file) || file;

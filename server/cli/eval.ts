@@ -15,16 +15,15 @@ a sheet this one uses; a name that is not an input is an error.`;
 
 const FLAGS: FlagSpec = { flags: { json: 'switch', root: 'value', set: 'repeat' } };
 
-export async function evalCommand(argv: string[]): Promise<number> {
+export async function evalCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const parsed = parseArgs(argv, FLAGS);
   const { positional, flags } = parsed;
   if (positional.length !== 1) throw new UsageError('eval takes one sheet');
   const overrides = overridesOf(parsed);
   const file = sheetArgument(positional[0]!, 'eval');
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
-  const sandbox = new Sandbox();
   try {
-    const { result: r } = await runOne(sandbox, file, root, undefined, overrides ? { overrides } : {});
+    const { result: r } = await runOne(sandbox, file, root, undefined, { ...(overrides ? { overrides } : {}), render: false });
     if (flags.has('json')) {
       const errors = r.errors.map((e) => ({ line: e.line, column: e.column, message: e.message, code: e.code }));
       process.stdout.write(JSON.stringify({ values: r.values, checks: r.checks, errors, ...(r.overrides.length ? { overrides: r.overrides } : {}) }, null, 2) + '\n');

@@ -16,7 +16,7 @@ input for this run; the JSON then lists the inputs set.`;
 
 const FLAGS: FlagSpec = { flags: { json: 'switch', csv: 'switch', output: 'value', root: 'value', set: 'repeat' }, short: { o: 'output' } };
 
-export async function exportCommand(argv: string[]): Promise<number> {
+export async function exportCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const parsed = parseArgs(argv, FLAGS);
   const { positional, flags } = parsed;
   const overrides = overridesOf(parsed);
@@ -24,9 +24,8 @@ export async function exportCommand(argv: string[]): Promise<number> {
   if (flags.has('json') === flags.has('csv')) throw new UsageError('export needs one of --json or --csv');
   const file = sheetArgument(positional[0]!, 'export');
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
-  const sandbox = new Sandbox();
   try {
-    const { result, failure } = await runOne(sandbox, file, root, undefined, overrides ? { overrides } : {});
+    const { result, failure } = await runOne(sandbox, file, root, undefined, { ...(overrides ? { overrides } : {}), render: false });
     if (failure) {
       process.stderr.write(`${file}: ${failure}\n`);
       return 1;

@@ -1,7 +1,7 @@
 // `wakesheet render SHEET.md -o OUT.html [--root DIR]`: the standalone record.
 import { dirname, extname, resolve } from 'node:path';
-import { countText } from '../core/index.js';
-import { typesetProgress } from '../pipeline/index.js';
+import { countText } from '../core/shared/words.js';
+import { typesetProgress } from '../pipeline/report-basics.js';
 import { recordData, recordPage } from '../pipeline/record.js';
 import { failing, overridesOf, parseArgs, runOne, Sandbox, sheetArgument, UsageError, writeOutput, type FlagSpec } from './shared.js';
 
@@ -17,7 +17,7 @@ record is of that run: its header lists each input set, with the sheet's value.`
 
 const FLAGS: FlagSpec = { flags: { output: 'value', root: 'value', set: 'repeat' }, short: { o: 'output' } };
 
-export async function renderCommand(argv: string[]): Promise<number> {
+export async function renderCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const parsed = parseArgs(argv, FLAGS);
   const { positional, flags } = parsed;
   const overrides = overridesOf(parsed);
@@ -28,7 +28,6 @@ export async function renderCommand(argv: string[]): Promise<number> {
   if (resolve(out) === resolve(file)) throw new UsageError(`-o ${out} is the sheet itself; name another file for the record`);
   if (extname(out).toLowerCase() === '.md') throw new UsageError(`-o ${out} would overwrite a Markdown file; the record is an .html file`);
   const root = resolve((flags.get('root') as string | undefined) ?? dirname(resolve(file)));
-  const sandbox = new Sandbox();
   try {
     let { result: r, text, failure } = await runOne(sandbox, file, root, undefined, extra);
     // The record must be typeset whole: a run that ran out of time goes on where it stopped.

@@ -3,8 +3,9 @@
 // with a sandbox failure as the sheet's error, and writing output files.
 import { existsSync, readFileSync, renameSync, statSync, unlinkSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { nearestWord } from '../core/index.js';
-import { emptyReport, type RunOptions, type SheetResult } from '../pipeline/index.js';
+import { nearestWord } from '../core/shared/words.js';
+import { emptyReport } from '../pipeline/report-basics.js';
+import type { RunOptions, SheetResult } from '../pipeline/types.js';
 import { isSheetFile, sheetTooLarge } from '../read/sheet-files.js';
 import { Sandbox, SandboxError } from '../sandbox/sandbox.js';
 

@@ -4,7 +4,7 @@
 // and every data file whose hash changed. Exit 0 only when everything matches.
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
-import { countText } from '../core/index.js';
+import { countText } from '../core/shared/words.js';
 import type { ValueJson } from '../pipeline/index.js';
 import { readRecord, sha256, type RecordData } from '../pipeline/record.js';
 import { dataBytesReader } from '../read/data-files.js';
@@ -22,7 +22,7 @@ Exits 0 only when all of it matches, 1 otherwise.`;
 
 const FLAGS: FlagSpec = { flags: { root: 'value' } };
 
-export async function verifyCommand(argv: string[]): Promise<number> {
+export async function verifyCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const { positional, flags } = parseArgs(argv, FLAGS);
   if (positional.length !== 1) throw new UsageError('verify takes one record file');
   const file = positional[0]!;
@@ -31,13 +31,12 @@ export async function verifyCommand(argv: string[]): Promise<number> {
   if (!data) throw new UsageError(`${file} is not a Wakesheet set-up record (written by wakesheet render)`);
   const root = resolve((flags.get('root') as string | undefined) ?? (existsSync(data.sheet.root) ? data.sheet.root : dirname(resolve(file))));
   const differences = [...sourceIntegrity(data), ...dataFileChanges(data, root)];
-  const sandbox = new Sandbox();
   let checked = 0;
   try {
     // The run is of the recorded texts, the used sheets' too, with the inputs that were set then.
     const sources = Object.fromEntries(data.sources.slice(1).map((x) => [x.path, x.text]));
     const overrides = data.overrides.length ? Object.fromEntries(data.overrides.map((o) => [o.name, o.now])) : undefined;
-    const { result, failure } = await runOne(sandbox, join(root, data.sheet.path), root, data.sources[0]!.text, { sources, ...(overrides ? { overrides } : {}) });
+    const { result, failure } = await runOne(sandbox, join(root, data.sheet.path), root, data.sources[0]!.text, { sources, ...(overrides ? { overrides } : {}), render: false });
     if (failure) differences.push(`the sheet could not be run again: ${failure}`);
     else {
       for (const [name, was] of Object.entries(data.values)) {

@@ -13,6 +13,7 @@ import { Budget, type Limits } from './limits.js';
 import { makeScope } from './make-scope.js';
 import { sameItems } from './memo.js';
 import { CONSTANTS } from './scope.js';
+import { unitNameClash, type DefinedName } from './unit-clash.js';
 
 /** An inline value as parsed: the expression, or why it does not parse. */
 export interface InlineExpr {
@@ -42,6 +43,8 @@ export interface InlineOptions {
   values: ReadonlyMap<string, Value>;
   /** The last good value of a name whose statement fails now, if it had one. */
   fallback: (name: string) => Value | undefined;
+  /** Where the sheet defines a name: a unit after a number must not be one. */
+  defined?: DefinedName;
   /** Results of the last run, reused while the values they read are the same objects. */
   cache: Map<string, InlineCacheEntry>;
   defaults: Map<string, Value>;
@@ -67,6 +70,12 @@ export function evaluateInline(items: readonly InlineExpr[], opts: InlineOptions
     seen.add(item.key);
     if (!item.expr) {
       out.set(item.key, { error: item.error!, stale: false });
+      continue;
+    }
+    // Checked before the cache: defining a name can make an unchanged value read two ways.
+    const clash = opts.defined && unitNameClash(item.expr, opts.defined);
+    if (clash) {
+      out.set(item.key, { error: diagnostic(clash, item.line), stale: false });
       continue;
     }
     const inputs: unknown[] = [];

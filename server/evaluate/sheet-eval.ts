@@ -13,6 +13,7 @@ import { sameItems } from './memo.js';
 import { CONSTANTS, type Scope } from './scope.js';
 import { planRerun } from './rerun.js';
 import { evaluateSweep, isSweep, type SweepEnv } from './sweep.js';
+import { unitNameClash, type DefinedName } from './unit-clash.js';
 
 export interface StatementResult {
   readonly stmt: Statement;
@@ -129,6 +130,12 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   const reads = new Set<string>();
   let freshCount = 0;
 
+  const defined: DefinedName = (name) => {
+    const d = defs.get(name);
+    if (d) return { line: d.stmt.line, source: d.stmt.source };
+    const line = broken.get(name);
+    return line === undefined ? undefined : { line };
+  };
   const used = new Set<string>();
   let stopped: string | undefined;
   const run = (r: StatementResult) => {
@@ -140,6 +147,11 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     for (const u of nameUsesOf(r.stmt)) {
       if (defs.has(u.name) || CONSTANTS.has(u.name) || broken.has(u.name) || imported.has(u.name)) continue;
       r.error = diagnostic(new SheetError('unknown-name', `\`${u.name}\` is not defined (line ${u.span.line})`, u.span), r.stmt.line);
+      return;
+    }
+    const clash = unitNameClash(r.stmt.expr, defined);
+    if (clash) {
+      r.error = diagnostic(clash, r.stmt.line);
       return;
     }
     const blocked = r.uses.find((n) => failed.has(n));
@@ -237,7 +249,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   for (const key of cache.entries.keys()) if (!used.has(key)) cache.entries.delete(key);
   // Only names the sheet still defines have a last good value to fall back to.
   const fallback = (name: string) => (defs.has(name) || broken.has(name) ? opts.fallback?.get(name) : undefined);
-  const inline = evaluateInline(opts.inline ?? [], { registry: opts.registry, limits: opts.limits ?? DEFAULT_LIMITS, values, fallback, cache: cache.inline, defaults: cache.defaults });
+  const inline = evaluateInline(opts.inline ?? [], { registry: opts.registry, limits: opts.limits ?? DEFAULT_LIMITS, values, fallback, defined, cache: cache.inline, defaults: cache.defaults });
   return { results, values, reads: [...reads], freshCount, inline };
 }
 

@@ -1,12 +1,15 @@
 // The statement and expression trees of a `basis` block. Every node carries
 // its place in the worksheet file (1-based line, 1-based columns).
 import type { Span } from '../diagnostics.js';
-import type { Unit } from '../units/unit-expr.js';
+import type { Unit, UnitFactor } from '../units/unit-expr.js';
 
 export type { Span };
 
 export interface UnitNode {
   readonly unit: Unit;
+  /** The unit's names with their powers as written: above and below the "/". */
+  readonly num: readonly UnitFactor[];
+  readonly den: readonly UnitFactor[];
   readonly span: Span;
 }
 

@@ -2,10 +2,11 @@
 // or, and, not, comparison (chainable), `to`, + -, * /, unary -, ^, postfix
 // (call, .field), atoms. Units after numbers are parsed in their own namespace.
 import { SheetError } from '../diagnostics.js';
-import type { Arg, CompareOp, Expr, Span, Statement } from './ast.js';
+import type { Arg, CompareOp, Expr, Span, Statement, UnitNode } from './ast.js';
+import { parseUnit } from '../units/unit-expr.js';
 import { lex, type Token } from './lexer.js';
 import { MAX_NESTING, nestedTooDeep } from './limits.js';
-import { KEYWORDS, parseUnitExpr, unitStarts, type TokenCursor } from './units.js';
+import { KEYWORDS, parseUnitExpr, powerTypo, targetStarts, unitStarts, type TokenCursor } from './units.js';
 
 const COMPARE = new Set(['<', '<=', '>', '>=', '==', '!=']);
 
@@ -92,7 +93,8 @@ function end(c: Cursor): void {
   const t = c.peek();
   if (t.type !== 'eof') {
     if (t.type === 'ident' && c.last().type === 'number') {
-      throw new SheetError('unknown-unit', `"${t.text}" is not a known unit`, t.span);
+      const power = powerTypo(t.text);
+      throw new SheetError('unknown-unit', `"${t.text}" is not a known unit${power ? `; a power of a unit is written with "^", as in ${power}` : ''}`, t.span);
     }
     throw unexpected(t, 'an operator or the end of the line');
   }
@@ -157,11 +159,17 @@ function parseConvert(c: Cursor): Expr {
   let e = parseAdditive(c);
   while (c.at('to')) {
     c.next();
-    if (!unitStarts(c)) throw unexpected(c.peek(), 'a unit after "to"');
-    const unit = parseUnitExpr(c);
+    if (!targetStarts(c)) throw unexpected(c.peek(), 'a unit after "to"');
+    const unit = unitStarts(c) ? parseUnitExpr(c) : plainTarget(c);
     e = { type: 'convert', expr: e, unit, span: join(e.span, unit.span) };
   }
   return e;
+}
+
+/** `to 1`: shown as a plain number. */
+function plainTarget(c: Cursor): UnitNode {
+  const t = c.next();
+  return { unit: parseUnit('1'), num: [], den: [], span: t.span };
 }
 
 function parseAdditive(c: Cursor): Expr {

@@ -19,9 +19,30 @@ function isUnitToken(t: Token, after: Token): boolean {
   return t.type === 'ident' && !KEYWORDS.has(t.text) && after.text !== '(' && isUnitName(t.text);
 }
 
-/** Does a unit expression start here? */
+/** "1/s": a reciprocal unit written with a leading 1, as the page itself prints it. */
+function reciprocalAhead(c: TokenCursor, at = 0): boolean {
+  const one = c.peek(at);
+  return one.type === 'number' && one.value === 1 && c.peek(at + 1).text === '/' && (isUnitToken(c.peek(at + 2), c.peek(at + 3)) || c.peek(at + 2).text === '(');
+}
+
+/** Does a unit expression start here (after a number or a list)? */
 export function unitStarts(c: TokenCursor): boolean {
-  return isUnitToken(c.peek(), c.peek(1));
+  return isUnitToken(c.peek(), c.peek(1)) || reciprocalAhead(c);
+}
+
+/** Does a conversion target start here? A unit, or 1 for a plain number (`10 % to 1`). */
+export function targetStarts(c: TokenCursor): boolean {
+  return unitStarts(c) || (c.peek().type === 'number' && c.peek().value === 1);
+}
+
+/** "s2" for "s^2": a unit name with a power written without "^". */
+export function powerTypo(name: string): string | undefined {
+  const m = /^([A-Za-zµμ]+?)(\d+)$/.exec(name);
+  return m && isUnitName(m[1]!) && !isUnitName(name) ? `${m[1]}^${m[2]}` : undefined;
+}
+
+function powerTypoError(t: Token, before: string): SheetError {
+  return new SheetError('unknown-unit', `"${t.text}" is not a unit: a power of a unit is written with "^", as in ${before}${powerTypo(t.text)}`, t.span);
 }
 
 function factor(c: TokenCursor): UnitFactor {
@@ -56,6 +77,10 @@ function unitGroupAhead(c: TokenCursor): boolean {
 }
 
 function group(c: TokenCursor, into: UnitFactor[]): void {
+  if (c.peek().type === 'number' && into.length === 0) {
+    c.next(); // the 1 of 1/s
+    return;
+  }
   if (c.peek().text === '(') {
     c.next();
     while (c.peek().text !== ')') {
@@ -72,6 +97,8 @@ function group(c: TokenCursor, into: UnitFactor[]): void {
       into.push(factor(c));
     } else if (isUnitToken(c.peek(), c.peek(1)) && c.peek().text !== '%') {
       into.push(factor(c));
+    } else if (c.peek().type === 'ident' && powerTypo(c.peek().text)) {
+      throw powerTypoError(c.peek(), '');
     } else return;
   }
 }
@@ -82,13 +109,24 @@ export function parseUnitExpr(c: TokenCursor): UnitNode {
   const num: UnitFactor[] = [];
   const den: UnitFactor[] = [];
   group(c, num);
-  while (c.peek().text === '/' && (isUnitToken(c.peek(1), c.peek(2)) || (c.peek(1).text === '(' && unitGroupAheadAt(c)))) {
-    c.next();
-    group(c, den);
+  for (;;) {
+    const slash = c.peek();
+    if (slash.text !== '/') break;
+    const next = c.peek(1);
+    if (isUnitToken(next, c.peek(2)) || (next.text === '(' && unitGroupAheadAt(c))) {
+      c.next();
+      group(c, den);
+      continue;
+    }
+    // "m/s2", written tight as a unit, means m/s^2; spaced, "m / s2" divides by a name.
+    if (next.type === 'ident' && !slash.spaced && !next.spaced && powerTypo(next.text)) {
+      throw powerTypoError(next, `${unitText(num, den)}/`);
+    }
+    break;
   }
   const span: Span = { line: first.span.line, col: first.span.col, end: c.last().span.end };
   try {
-    return { unit: combineUnit(num, den, unitText(num, den)), span };
+    return { unit: combineUnit(num, den, unitText(num, den)), num, den, span };
   } catch (e) {
     if (e instanceof UnitError) throw new SheetError('unknown-unit', e.message, span);
     throw e;
@@ -107,7 +145,7 @@ function factorText(f: UnitFactor): string {
 
 /** Canonical text: "kg/m^3", "J/(kg K)", "Pa s". */
 export function unitText(num: UnitFactor[], den: UnitFactor[]): string {
-  const top = num.map(factorText).join(' ');
+  const top = num.length ? num.map(factorText).join(' ') : '1';
   if (den.length === 0) return top;
   const bottom = den.map(factorText).join(' ');
   return `${top}/${den.length > 1 ? `(${bottom})` : bottom}`;

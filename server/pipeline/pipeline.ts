@@ -103,17 +103,21 @@ export class SheetPipeline {
     const settingLine = lineOfSetting(text, 'units');
     const frontMatterProblems = [...(problem ? [problem] : []), ...display.problems.map((message) => ({ line: settingLine, message }))];
     const results = new Map(evaluation.results.map((r) => [r.stmt.line, r]));
-    const { parts, untypeset } = this.renderer.render({
-      sheet,
-      blocks,
-      results,
-      inline: evaluation.inline,
-      images,
-      uses: uses.views,
-      view: { sig, values: evaluation.values, lastGood: this.lastGood },
-      deadline,
-      budgetMs: this.limits.timeoutMs,
-    });
+    // A run for values only (eval, check) renders no parts, and so never loads KaTeX.
+    const { parts, untypeset } =
+      opts.render === false
+        ? { parts: [], untypeset: 0 }
+        : this.renderer.render({
+            sheet,
+            blocks,
+            results,
+            inline: evaluation.inline,
+            images,
+            uses: uses.views,
+            view: { sig, values: evaluation.values, lastGood: this.lastGood },
+            deadline,
+            budgetMs: this.limits.timeoutMs,
+          });
     const imageProblems = imageSources.flatMap((i) => {
       const loaded = images.get(i.src);
       return loaded && 'error' in loaded ? [{ line: i.line, message: loaded.error }] : [];

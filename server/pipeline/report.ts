@@ -120,15 +120,6 @@ function withNotes(json: ValueJson, warnings: readonly string[]): ValueJson {
   return warnings.length ? { ...json, warnings: [...(json.warnings ?? []), ...warnings] } : json;
 }
 
-/**
- * A run that left `after` of `before` statements untypeset did enough to be
- * worth another run of the same text (which goes on where it stopped). A
- * sheet too large to typeset in any run stops after one.
- */
-export function typesetProgress(before: number, after: number): boolean {
-  return after <= 0.9 * before;
-}
-
 function untypesetNote(n: number): string {
   const what = n === 1 ? 'One statement or paragraph was' : `${n.toLocaleString('en')} statements and paragraphs were`;
   return `${what} not typeset within the sheet's time limit and ${n === 1 ? 'is' : 'are'} shown as source text; the values are all current.`;
@@ -138,32 +129,4 @@ function needsCaution(v: Value): boolean {
   if (v.kind === 'record') return v.tag === 'caution' || [...v.fields.values()].some((f) => needsCaution(f.value));
   if (v.kind === 'list') return v.items.some(needsCaution);
   return false;
-}
-
-/** A report with nothing in it but what `fields` says: for a run that could not happen (the sandbox failed) and for stand-ins. */
-export function emptyReport(fields: Partial<SheetReport> = {}): SheetReport {
-  const title = fields.title ?? '';
-  const meta = fields.meta ?? {};
-  return {
-    title,
-    meta,
-    headerHtml: sheetHeaderHtml(title, meta, false),
-    parts: [],
-    summaryHtml: '',
-    summary: { inputs: 0, results: 0, checksPassed: 0, checksFailed: 0, checksNotRun: 0, errors: 0 },
-    values: {},
-    inputs: [],
-    arguments: [],
-    checks: [],
-    errors: [],
-    reads: [],
-    elapsedMs: 0,
-    caution: false,
-    freshStatements: 0,
-    untypeset: 0,
-    usedSheets: [],
-    overrides: [],
-    overridesMatched: [],
-    ...fields,
-  };
 }

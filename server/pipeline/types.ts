@@ -99,6 +99,8 @@ export interface RunOptions {
   sources?: Record<string, string>;
   /** The sheets on the way to this one through `use` (absolute paths), to find circles. */
   chain?: string[];
+  /** false: values, checks and errors only, with no parts (the command line's eval and check). */
+  render?: boolean;
 }
 
 /** An input replaced for one run. */

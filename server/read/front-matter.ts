@@ -1,6 +1,12 @@
 // YAML front matter between "---" lines at the very top of a sheet. The
 // front matter's lines are blanked, not removed, so line numbers stay true.
-import { parse as parseYaml } from 'yaml';
+// Front matter of plain `key: text` lines (what sheets use) is read here;
+// anything else goes to the yaml package, loaded only then (it costs the
+// command line's start-up tens of milliseconds).
+import { createRequire } from 'node:module';
+import type { parse as yamlParse } from 'yaml';
+
+let parseYaml: typeof yamlParse | undefined;
 
 export interface FrontMatter {
   meta: Record<string, string>;
@@ -22,8 +28,36 @@ export function splitFrontMatter(text: string): FrontMatter {
   return { meta: { ...last.read.meta }, body, ...(last.read.problem ? { problem: last.read.problem } : {}) };
 }
 
+/**
+ * Plain `key: value` lines whose values YAML would read as the same text (or a
+ * whole number, or true/false/null), else undefined. Anything YAML reads in
+ * another way (quotes, colons, comments, floats, dates, nesting) is left to yaml.
+ */
+export function readPlainFrontMatter(source: string): Record<string, string> | undefined {
+  const meta: Record<string, string> = {};
+  for (const line of source.split('\n')) {
+    if (line.trim() === '') continue;
+    const m = /^([A-Za-z_][A-Za-z0-9_-]*):(?:[ \t]+(.*?))?[ \t]*$/.exec(line);
+    if (!m || Object.hasOwn(meta, m[1]!)) return undefined;
+    const value = m[2] ?? '';
+    if (value === '' || /^(null|Null|NULL|~)$/.test(value)) {
+      meta[m[1]!] = '\u0000'; // a key given no value: dropped below, as yaml's null is
+      continue;
+    }
+    if (/^(true|True|TRUE|false|False|FALSE)$/.test(value)) meta[m[1]!] = value.toLowerCase();
+    else if (/^[0-9]+$/.test(value)) meta[m[1]!] = String(Number(value));
+    else if (/^[-+.0-9]/.test(value) || /[:#'"\\]/.test(value) || /^[?,[\]{}&*!|>%@`]/.test(value)) return undefined;
+    else meta[m[1]!] = value;
+  }
+  for (const k of Object.keys(meta)) if (meta[k] === '\u0000') delete meta[k];
+  return meta;
+}
+
 function readYaml(source: string): Omit<FrontMatter, 'body'> {
+  const plain = readPlainFrontMatter(source);
+  if (plain) return { meta: plain };
   try {
+    parseYaml ??= (createRequire(import.meta.url)('yaml') as { parse: typeof yamlParse }).parse;
     const data: unknown = parseYaml(source);
     const meta: Record<string, string> = {};
     if (data && typeof data === 'object' && !Array.isArray(data)) {

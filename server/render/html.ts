@@ -1,5 +1,5 @@
 // Attributes written from values: every value escaped by the one escaper.
-import { escapeHtml } from '../core/index.js';
+import { escapeHtml } from '../core/shared/escape.js';
 
 export { escapeHtml };
 

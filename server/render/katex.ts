@@ -2,8 +2,17 @@
 // formulas whose text changed. Trust stays off (no \href to javascript:).
 // The cache is bounded by the characters it holds, not by a count of
 // formulas: a sheet of long formulas must not take the memory of the sheet.
-import katex from 'katex';
+// KaTeX is loaded at the first formula: a run that renders nothing (the
+// command line's eval and check) never pays for it.
+import { createRequire } from 'node:module';
+import type katexModule from 'katex';
 import { compactHtml } from './html.js';
+
+let katex: typeof katexModule | undefined;
+
+function typesetter(): typeof katexModule {
+  return (katex ??= createRequire(import.meta.url)('katex') as typeof katexModule);
+}
 
 const cache = new Map<string, string>();
 /** Characters of LaTeX and html the cache may hold (one byte each once compact). */
@@ -14,7 +23,7 @@ export function mathHtml(latex: string, display = false): string {
   const key = (display ? 'D' : 'I') + latex;
   const hit = cache.get(key);
   if (hit !== undefined) return hit;
-  const html = compactHtml(katex.renderToString(latex, { throwOnError: false, displayMode: display, output: 'htmlAndMathml', strict: 'ignore', trust: false, maxExpand: 200 }));
+  const html = compactHtml(typesetter().renderToString(latex, { throwOnError: false, displayMode: display, output: 'htmlAndMathml', strict: 'ignore', trust: false, maxExpand: 200 }));
   const size = key.length + html.length;
   if (size > MAX_CHARS / 8) return html; // a formula this long is not worth keeping
   while (held + size > MAX_CHARS) {

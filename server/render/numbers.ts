@@ -115,6 +115,8 @@ function superscript(s: string): string {
 export function unitPlain(unit: string): string {
   return unit
     .replace(/\^(-?[\d.]+)/g, (_, e: string) => superscript(e))
+    .replace(/\bdelta_degC\b/g, 'Δ°C')
+    .replace(/\bdelta_degF\b/g, 'Δ°F')
     .replace(/\bdegC\b/g, '°C')
     .replace(/\bdegF\b/g, '°F')
     .replace(/\bu(?=[a-zA-Z])/g, (m, off: number, s: string) => (off === 0 || /[\s/(]/.test(s[off - 1]!) ? 'µ' : m))
@@ -130,6 +132,8 @@ export function shownPlain(s: Shown): string {
 }
 
 function unitFactorLatex(f: string): string {
+  if (f === 'delta_degC') return '\\Delta{}^{\\circ}\\mathrm{C}';
+  if (f === 'delta_degF') return '\\Delta{}^{\\circ}\\mathrm{F}';
   if (f === 'degC') return '{}^{\\circ}\\mathrm{C}';
   if (f === 'degF') return '{}^{\\circ}\\mathrm{F}';
   if (f === '%') return '\\%';

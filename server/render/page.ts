@@ -1,6 +1,6 @@
 // The page around a sheet: header with the front matter, the summary, the
 // sheet's own content in one <main>, and the planning caution where due.
-import { nounFor } from '../core/index.js';
+import { nounFor } from '../core/shared/words.js';
 import { escapeHtml } from './html.js';
 import type { SheetPart } from './parts.js';
 

@@ -2,12 +2,20 @@
 // sanitize-html: marked passes raw HTML through, so scripts, event handlers
 // and javascript: links are removed here. Our own KaTeX and values are put
 // in after sanitising, never through it.
+import { createRequire } from 'node:module';
 import { Parser, type Token, type TokensList } from 'marked';
-import sanitizeHtml from 'sanitize-html';
+import type sanitizeModule from 'sanitize-html';
 import { escapeHtml } from './html.js';
 
-const OPTIONS: sanitizeHtml.IOptions = {
-  allowedTags: [...sanitizeHtml.defaults.allowedTags, 'img', 'del', 'ins', 'details', 'summary', 'sup', 'sub', 'input', 'kbd', 'h1', 'h2'],
+// sanitize-html is loaded at the first prose part: a run that renders nothing never pays for it.
+let sanitizer: typeof sanitizeModule | undefined;
+
+function sanitizeHtml(): typeof sanitizeModule {
+  return (sanitizer ??= createRequire(import.meta.url)('sanitize-html') as typeof sanitizeModule);
+}
+
+const options = (defaults: sanitizeModule.IDefaults): sanitizeModule.IOptions => ({
+  allowedTags: [...defaults.allowedTags, 'img', 'del', 'ins', 'details', 'summary', 'sup', 'sub', 'input', 'kbd', 'h1', 'h2'],
   allowedAttributes: {
     a: ['href', 'name', 'title'],
     img: ['src', 'alt', 'title', 'width', 'height'],
@@ -22,10 +30,12 @@ const OPTIONS: sanitizeHtml.IOptions = {
   allowedSchemesAppliedToAttributes: ['href', 'src'],
   allowProtocolRelative: false,
   allowedClasses: { code: [/^language-[\w-]+$/] },
-};
+});
+let OPTIONS: sanitizeModule.IOptions | undefined;
 
 export function sanitize(html: string): string {
-  return sanitizeHtml(html, OPTIONS);
+  const clean = sanitizeHtml();
+  return clean(html, (OPTIONS ??= options(clean.defaults)));
 }
 
 export function proseHtml(tokens: Token[], links: TokensList['links']): string {

@@ -14,6 +14,8 @@ export interface ValueJson {
   unit: string;
   /** As rendered, e.g. "23 µm". */
   display: string;
+  /** Set for a temperature difference: `si` is then an interval in K, not a temperature. */
+  interval?: true;
   fields?: Record<string, ValueJson>;
   items?: ValueJson[];
   /** Tables, and lists of records (a sweep: the swept inputs first), as columns and rows. */
@@ -45,7 +47,7 @@ function computeJson(v: Value, sig: number): ValueJson {
   const display = displayText(v, sig);
   switch (v.kind) {
     case 'quantity':
-      return { si: v.si, unit: unitLabel(v.dims), display };
+      return v.interval ? { si: v.si, unit: unitLabel(v.dims), display, interval: true } : { si: v.si, unit: unitLabel(v.dims), display };
     case 'list': {
       if (v.items.length > JSON_ITEMS_MAX) return { si: null, unit: '', display };
       const json: ValueJson = { si: null, unit: '', display, items: v.items.map((i) => valueJson(i, sig)) };

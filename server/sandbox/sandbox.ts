@@ -5,10 +5,12 @@
 // fresh one started. A request whose child died or hung is tried once more in
 // a fresh child (which holds no other sheet: a sheet that fits alone gets
 // the whole heap), and only then fails with the reason.
-import { fork, type ChildProcess } from 'node:child_process';
-import { fileURLToPath } from 'node:url';
-import { DEFAULT_LIMITS, type Limits } from '../evaluate/index.js';
-import { withPage, type RunOptions, type SheetReport, type SheetResult } from '../pipeline/index.js';
+import type { ChildProcess } from 'node:child_process';
+// Only light modules here: the parent (the command line, the server) does not load the engine.
+import { DEFAULT_LIMITS, type Limits } from '../evaluate/limits.js';
+import { withPage } from '../pipeline/page.js';
+import type { RunOptions, SheetReport, SheetResult } from '../pipeline/types.js';
+import { DEFAULT_HEAP_MB, startChild, takeEarly } from './spawn.js';
 import { pipelineKey, type ChildReply, type ChildRequest, type WireReport } from './wire.js';
 
 export interface SandboxOptions {
@@ -47,8 +49,6 @@ export function backstopMs(timeoutMs: number): number {
   return Math.max(3 * timeoutMs, timeoutMs + 8000);
 }
 
-const childPath = fileURLToPath(new URL(import.meta.url.endsWith('.ts') ? './child.ts' : './child.js', import.meta.url));
-
 export class Sandbox {
   private child: ChildProcess | undefined;
   private ready: Promise<void> | undefined;
@@ -64,7 +64,7 @@ export class Sandbox {
 
   constructor(options: SandboxOptions = {}) {
     this.limits = { ...DEFAULT_LIMITS, ...options.limits, timeoutMs: options.timeoutMs ?? options.limits?.timeoutMs ?? DEFAULT_LIMITS.timeoutMs };
-    this.heapMb = options.heapMb ?? 256;
+    this.heapMb = options.heapMb ?? DEFAULT_HEAP_MB;
   }
 
   /** Runs the pipeline over one sheet in the child. */
@@ -83,24 +83,13 @@ export class Sandbox {
 
   private start(): Promise<void> {
     if (this.ready) return this.ready;
-    const execArgv = [`--max-old-space-size=${this.heapMb}`, '--stack-size=2000'];
-    if (childPath.endsWith('.ts')) execArgv.push('--import', 'tsx');
     this.parts = new Map(); // a new child remembers nothing, and sends every part
-    const child = fork(childPath, [], { execArgv, stdio: ['ignore', 'ignore', 'pipe', 'ipc'], serialization: 'advanced' });
+    const started = takeEarly(this.heapMb) ?? startChild(this.heapMb);
+    const child = started.child;
     this.child = child;
-    let stderr = '';
-    child.stderr?.on('data', (d: Buffer) => {
-      stderr = (stderr + d.toString()).slice(-4000);
-    });
-    this.ready = new Promise((resolve, reject) => {
-      const onReady = (m: unknown) => {
-        if (m && typeof m === 'object' && 'ready' in m) {
-          child.off('message', onReady);
-          resolve();
-        }
-      };
-      child.on('message', onReady);
-      child.once('exit', () => reject(new SandboxError('crash', 'the evaluator could not start')));
+    const stderr = started.stderr;
+    this.ready = started.ready.catch(() => {
+      throw new SandboxError('crash', 'the evaluator could not start');
     });
     this.ready.catch(() => {});
     child.on('message', (m: ChildReply | { ready: true }) => {
@@ -115,7 +104,7 @@ export class Sandbox {
       if (job && !this.closed) {
         this.busy = undefined;
         clearTimeout(this.timer);
-        const oom = /heap out of memory|Allocation failed|JavaScript heap/i.test(stderr) || code === 134 || signal === 'SIGABRT';
+        const oom = /heap out of memory|Allocation failed|JavaScript heap/i.test(stderr()) || code === 134 || signal === 'SIGABRT';
         this.failOrRetry(
           job,
           oom

@@ -2,7 +2,7 @@
 // Juxtaposition binds tighter than "/", so "J/kg K" reads J/(kg K), as
 // engineers write it. The same grammar serves sheets and function specs.
 import { type Dims, DIMENSIONLESS, dimsMul, dimsPow } from './dims.js';
-import { lookupUnit, type UnitDef } from './catalogue.js';
+import { lookupUnit, refusedUnit, type UnitDef } from './catalogue.js';
 
 export interface UnitFactor {
   name: string;
@@ -23,9 +23,14 @@ export function combineUnit(num: UnitFactor[], den: UnitFactor[], text: string):
   let dims: Dims = DIMENSIONLESS;
   let offset = 0;
   const all = [...num.map((f) => ({ ...f, sign: 1 })), ...den.map((f) => ({ ...f, sign: -1 }))];
+  let interval = false;
   for (const f of all) {
+    const refused = refusedUnit(f.name);
+    if (refused) throw new UnitError(refused);
     const def = lookupUnit(f.name);
     if (!def) throw new UnitError(`unknown unit "${f.name}"`);
+    // Only a temperature interval on its own marks its values as differences (5 delta_degC/m is just K/m).
+    if (def.interval && all.length === 1 && f.power === 1 && f.sign === 1) interval = true;
     if (def.offset !== 0) {
       if (all.length !== 1 || f.power !== 1 || f.sign !== 1) {
         throw new UnitError(`${f.name} has an offset and cannot be combined with other units; use K inside compound units`);
@@ -35,7 +40,7 @@ export function combineUnit(num: UnitFactor[], den: UnitFactor[], text: string):
     factor *= Math.pow(def.factor, f.power * f.sign);
     dims = dimsMul(dims, dimsPow(def.dims, f.power), f.sign);
   }
-  return { factor, offset, dims, text };
+  return interval ? { factor, offset, dims, text, interval } : { factor, offset, dims, text };
 }
 
 const cache = new Map<string, Unit>();
@@ -96,6 +101,7 @@ export function parseUnit(text: string): Unit {
   return unit;
 }
 
+/** A unit name, or a name refused as a unit (so that it is read as one and refused in words). */
 export function isUnitName(name: string): boolean {
-  return lookupUnit(name) !== null;
+  return lookupUnit(name) !== null || refusedUnit(name) !== undefined;
 }

@@ -50,8 +50,12 @@ describe('humid air by partial pressures', () => {
     near(airProperties(T, p, RH).rho, expected, expected * 1e-8);
   });
 
-  it('is lighter than dry air at the same temperature and pressure', () => {
-    expect(airProperties(303.15, 101325, 0.8).rho).toBeLessThan(airProperties(303.15, 101325, 0).rho);
+  it('saturated air at 300 K by the same partial pressures, with p_sat of IF97 Table 35', () => {
+    // p_sat(300 K) = 3.53658941e-3 MPa: IAPWS-IF97 (R7-97(2012)) Table 35 check value (from memory).
+    const pv = 3536.58941;
+    const expected = (101325 - pv) / ((R_STAR / M_AIR) * 300) + pv / ((R_STAR / 18.01528) * 300);
+    near(airProperties(300, 101325, 1).rho, expected, expected * 1e-8);
+    near(airProperties(300, 101325, 1).vapourPressure, pv, 0.5e-8 * 1e6);
   });
 });
 
@@ -76,20 +80,45 @@ describe('air() as a worksheet function', () => {
     expect(() => call('air', { T: shown(-300, 'degC'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(/−300 °C is below absolute zero/);
   });
 
+  it('refuses a temperature difference where a temperature belongs', () => {
+    // 36 °F of interval is 20 K (NIST SP 811 (2008) B.8; from memory): a difference, not a reading.
+    expect(() => call('air', { T: shown(36, 'delta_degF'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(
+      'T is a temperature difference (20 K), not a temperature; give an absolute temperature such as 20 degC or 293.15 K',
+    );
+    // A value in K without that mark is taken as a temperature.
+    near(field(call('air', { T: si(288.15, 'K'), p: si(101325, 'Pa'), RH: shown(0, '%') }).value, 'rho'), 1.225, 0.00005);
+  });
+
   it('refuses a length where a temperature belongs', () => {
     expect(() => call('air', { T: si(5, 'm'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(TradeError);
   });
 
-  it('refuses a humidity written without its % sign', () => {
-    expect(() => call('air', { T: shown(20, 'degC'), p: si(101325, 'Pa'), RH: si(60) })).toThrow(/RH: 60 %/);
+  it('refuses a humidity written without its % sign, and says how to write it', () => {
+    expect(() => call('air', { T: shown(20, 'degC'), p: si(101325, 'Pa'), RH: si(60) })).toThrow('RH = 60 has no unit, so it reads as 6000 %; write it with its unit, e.g. RH: 60 %');
+  });
+
+  it('refuses 120 % as the value it is, without a hint meant for bare numbers', () => {
+    expect(() => call('air', { T: shown(20, 'degC'), p: si(101325, 'Pa'), RH: shown(120, '%') })).toThrow(/^RH = 120 % is outside 0 to 100 %$/);
+  });
+
+  it('refuses air below its critical temperature, where it can be liquid: −200 °C', () => {
+    // Critical temperature of air 132.5 K (Lemmon et al. 2000, from memory); at 1 atm air condenses near 79 K.
+    expect(() => call('air', { T: shown(-200, 'degC'), p: si(101325, 'Pa'), RH: shown(0, '%') })).toThrow(/T = −200 °C is below −140.65 °C \(132.5 K\), the critical temperature of air/);
+    expect(() => airProperties(132.4, 101325)).toThrow(TradeError);
+    // Just above it the ideal gas still answers, with the Sutherland range warning of the entry.
+    near(airProperties(132.5, 101325).rho, 101325 / ((R_STAR / M_AIR) * 132.5), 1e-12);
+    const cold = asRecord(call('air', { T: shown(-130, 'degC'), p: si(101325, 'Pa'), RH: shown(0, '%') }).value);
+    expect(cold.warnings.join(' ')).toMatch(/T = −130 °C is outside 170 to 1900 K, where Sutherland's law holds within about 2 %/);
   });
 
   it('refuses humid air below 0 °C, where the saturation formula does not apply', () => {
     expect(() => call('air', { T: shown(-10, 'degC'), p: si(101325, 'Pa'), RH: shown(80, '%') })).toThrow(/0 to 100 °C/);
   });
 
-  it('refuses a pressure of zero', () => {
-    expect(() => airProperties(288.15, 0, 0)).toThrow(TradeError);
+  it('refuses a pressure of zero, and humid air at a pressure where its water would boil', () => {
+    expect(() => airProperties(288.15, 0, 0)).toThrow('p = 0 Pa: the pressure must be above zero');
+    // p_sat(300 K) = 3536.6 Pa (IF97 Table 35): below that total pressure saturated air is all vapour.
+    expect(() => airProperties(300, 3500, 1)).toThrow(/the vapour pressure 3537 Pa .* reaches the total pressure 3500 Pa: the water would boil/);
   });
 
   it('names a missing temperature', () => {

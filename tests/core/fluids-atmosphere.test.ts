@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { TradeError, shown, si } from '../../server/core/index.js';
-import { geopotentialAltitude, standardAtmosphere } from '../../server/core/fluids/atmosphere.js';
-import { call, field, near } from './fluids-helpers.js';
+import { atmosphereAt, geometricAltitude, geopotentialAltitude, standardAtmosphere } from '../../server/core/fluids/atmosphere.js';
+import { asRecord, call, field, near, nearRel } from './fluids-helpers.js';
 
 describe('standard atmosphere against handbook tables', () => {
   // Kutz (ed.), Mechanical Engineers' Handbook Vol. 4, "Thermophysical Properties of Fluids",
@@ -52,25 +52,103 @@ describe('standard atmosphere against handbook tables', () => {
   });
 });
 
-describe('atmosphere() as a worksheet function', () => {
-  it('returns a fluid record with T, p, rho, mu, nu, a', () => {
-    const { value } = call('atmosphere', { h: shown(5, 'km') });
-    expect(value.kind === 'record' && value.tag).toBe('fluid');
-    // The same 5 km point as the geopotential column of USSA-1976: T = 255.65 K (lapse 6.5 K/km, crnslab page).
-    near(field(value, 'T'), 255.65, 0.005);
-    for (const name of ['p', 'rho', 'mu', 'nu', 'a']) expect(field(value, name)).toBeGreaterThan(0);
+describe('the isothermal layer, 11 to 20 km', () => {
+  // Carmichael, Public Domain Aeronautical Software, "A Table of the Standard Atmosphere to 20 km
+  // in SI units" (repo kurtsansom/pdas, docs/source/atmosTable2SI.rst), by geometric altitude in
+  // 0.5 km steps; sigma = rho/1.225 printed to four decimals, so half a unit of the fourth is the
+  // tolerance. (Its pressure column is whole pascals and lies 0.2 to 1.1 Pa below the equations of
+  // the standard at every altitude, so it is not used to the last pascal.)
+  const pdasSigma: Array<[number, number]> = [
+    [11.5, 0.2755], [12, 0.2546], [12.5, 0.2354], [13, 0.2176], [13.5, 0.2012], [14, 0.186],
+    [14.5, 0.172], [15, 0.159], [15.5, 0.147], [16, 0.1359], [16.5, 0.1256], [17, 0.1162],
+    [17.5, 0.1074], [18, 0.0993], [18.5, 0.0918], [19, 0.0849], [19.5, 0.0785], [20, 0.0726],
+  ];
+  for (const [km, sigma] of pdasSigma) {
+    it(`geometric ${km} km: rho/rho0 = ${sigma} and T = 216.65 K (PDAS table)`, () => {
+      const s = atmosphereAt({ geometric: km * 1000 });
+      near(s.rho / 1.225, sigma, 0.00005);
+      // Isothermal at 216.65 K from H = 11 to 20 km: a defining value (crnslab page, citing ICAO Doc 7488/2 and USSA-1976).
+      near(s.T, 216.65, 1e-9);
+    });
+  }
+
+  // DERIVED from the standard's equations with its VERIFIED constants (crnslab page): the isothermal
+  // layer's p = p11 exp(−g0 (H − 11 km)/(R T11)), p11 = 22 632 Pa, T11 = 216.65 K, g0 = 9.80665 m/s²,
+  // R = R*/M0 = 8314.32/28.9644. p11 is printed to five figures, so the tolerance is its half unit
+  // carried through: 0.5/22632 relative.
+  const R = 8314.32 / 28.9644;
+  const derived = (H: number) => 22632 * Math.exp((-9.80665 * (H - 11000)) / (R * 216.65));
+  for (const H of [12000, 15000, 18000, 20000]) {
+    it(`geopotential ${H / 1000} km: p = ${derived(H).toFixed(1)} Pa (derived from the standard's equations)`, () => {
+      nearRel(standardAtmosphere(H).p, derived(H), 0.5 / 22632);
+      // Ideal gas at the layer temperature: rho = p/(R T).
+      nearRel(standardAtmosphere(H).rho, derived(H) / (R * 216.65), 0.5 / 22632);
+    });
+  }
+
+  it('the top of the layer, geopotential 20 km: p = 5474.89 Pa (USSA-1976, base pressure of the next layer; from memory)', () => {
+    near(standardAtmosphere(20000).p, 5474.89, 0.005);
+  });
+});
+
+describe('geometric and geopotential altitude', () => {
+  it('are related by H = r0 Z/(r0 + Z) with r0 = 6 356 766 m (USSA-1976; crnslab page), both ways', () => {
+    for (const Z of [1000, 11000, 20000]) {
+      nearRel(geopotentialAltitude(Z), (6356766 * Z) / (6356766 + Z), 1e-15);
+      nearRel(geometricAltitude(geopotentialAltitude(Z)), Z, 1e-12);
+    }
+    // The top of the covered range, geopotential 20 km, is geometric 20 063.1 m (the same relation).
+    near(geometricAltitude(20000), (6356766 * 20000) / (6356766 - 20000), 1e-6);
   });
 
-  it('refuses altitudes outside 0 to 20 km', () => {
-    expect(() => call('atmosphere', { h: si(25000, 'm') })).toThrow(TradeError);
-    expect(() => call('atmosphere', { h: si(-100, 'm') })).toThrow(/0 to 20 km/);
+  it('atmosphereAt gives both altitudes back, whichever was given', () => {
+    const byZ = atmosphereAt({ geometric: 15000 });
+    nearRel(byZ.H, geopotentialAltitude(15000), 1e-15);
+    expect(byZ.Z).toBe(15000);
+    const byH = atmosphereAt({ geopotential: 15000 });
+    expect(byH.H).toBe(15000);
+    nearRel(byH.Z, geometricAltitude(15000), 1e-15);
+  });
+
+  it('covers geometric altitudes up to the geometric height of geopotential 20 km, and no further', () => {
+    near(atmosphereAt({ geometric: geometricAltitude(20000) }).T, 216.65, 1e-9);
+    expect(() => atmosphereAt({ geometric: geometricAltitude(20000) + 0.01 })).toThrow(/geometric altitudes from 0 to 20.063 km/);
+    expect(() => atmosphereAt({ geometric: -1 })).toThrow(/got geometric = −1 m/);
+  });
+});
+
+describe('atmosphere() as a worksheet function', () => {
+  it('returns a fluid record with T, p, rho, mu, nu, a and both altitudes, and says which was given', () => {
+    const { value } = call('atmosphere', { geometric: shown(5, 'km') });
+    const r = asRecord(value);
+    expect(r.tag).toBe('fluid');
+    expect([...r.fields.keys()]).toEqual(['T', 'p', 'rho', 'mu', 'nu', 'a', 'H', 'Z']);
+    // Kutz Table 6 at geometric 5 km (the rows above): T = 255.68 K, rho = 0.7364 kg/m^3, p = 0.5405 bar.
+    near(field(value, 'T'), 255.68, 0.005);
+    near(field(value, 'rho'), 0.7364, 0.00005);
+    near(field(value, 'p') / 1e5, 0.5405, 0.00005);
+    expect(r.remarks.join(' ')).toMatch(/at geometric altitude Z = 5000 m \(geopotential H = 4996.07 m\)/);
+  });
+
+  it('at a geopotential altitude (what a bare first argument is) says so too', () => {
+    const { value } = call('atmosphere', { geopotential: shown(5, 'km') });
+    // The geopotential column of USSA-1976 at 5 km: T = 255.65 K (lapse 6.5 K/km, crnslab page).
+    near(field(value, 'T'), 255.65, 0.005);
+    expect(asRecord(value).remarks.join(' ')).toMatch(/at geopotential altitude H = 5000 m \(geometric Z = 5003.94 m\)/);
+  });
+
+  it('refuses altitudes outside 0 to 20 km, showing the value given in full', () => {
+    expect(() => call('atmosphere', { geopotential: si(25000, 'm') })).toThrow(TradeError);
+    expect(() => call('atmosphere', { geopotential: si(-100, 'm') })).toThrow(/0 to 20 km/);
+    expect(() => call('atmosphere', { geopotential: si(20000.001, 'm') })).toThrow('got geopotential = 20000.001 m');
+  });
+
+  it('wants exactly one altitude', () => {
+    expect(() => call('atmosphere', {})).toThrow(/give an altitude: geopotential: … or geometric: …/);
+    expect(() => call('atmosphere', { geopotential: si(1, 'km'), geometric: si(1, 'km') })).toThrow(/not both/);
   });
 
   it('refuses a temperature where an altitude belongs', () => {
-    expect(() => call('atmosphere', { h: shown(15, 'degC') })).toThrow(TradeError);
-  });
-
-  it('names a missing altitude', () => {
-    expect(() => call('atmosphere', {})).toThrow(/missing argument h/);
+    expect(() => call('atmosphere', { geopotential: shown(15, 'degC') })).toThrow(TradeError);
   });
 });

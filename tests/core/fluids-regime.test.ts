@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createRegistry, TradeError, shown, si, type Value } from '../../server/core/index.js';
+import { flatPlateRegime } from '../../server/core/fluids/regime.js';
+import { compressibilityWarnings } from '../../server/core/shared/flow.js';
 import { asRecord, call, field, near, nearRel, siOfValue } from './fluids-helpers.js';
 
 // ISA sea level: rho0 = 1.2250 kg/m^3 (USSA-1976; Kutz Table 6), mu0 = 1.7894e-5 Pa s and
@@ -37,6 +39,14 @@ describe('similarity numbers', () => {
     const above = call('mach', { U: si(0.35 * A0, 'm/s'), fluid: seaLevelAir() });
     expect(above.warnings.join(' ')).toMatch(/above 0\.3/);
   });
+
+  it('names the regime of compressible flow: above 0.3, supersonic from 1, hypersonic from 5 (common practice)', () => {
+    expect(compressibilityWarnings(0.3)).toEqual([]);
+    expect(compressibilityWarnings(0.31)).toEqual(['Ma = 0.31 is above 0.3: density changes exceed about 5 %, so use a compressible solver set-up']);
+    expect(compressibilityWarnings(1).join(' ')).toMatch(/^Ma = 1: supersonic flow/);
+    expect(compressibilityWarnings(4.99).join(' ')).toMatch(/supersonic/);
+    expect(compressibilityWarnings(5).join(' ')).toMatch(/^Ma = 5: hypersonic flow, far outside an incompressible set-up \(check the speed and its unit\)/);
+  });
 });
 
 describe('flow_regime', () => {
@@ -53,6 +63,24 @@ describe('flow_regime', () => {
     expect(regimeAt(4e5)).toBe('laminar');
     expect(regimeAt(1e6)).toBe('transitional');
     expect(regimeAt(1e7)).toBe('turbulent');
+  });
+
+  it('laminar below 5e5, not at it: the same comparison as boundary_layer and skin_friction', () => {
+    expect(flatPlateRegime(499999).regime).toBe('laminar');
+    expect(flatPlateRegime(5e5).regime).toBe('transitional');
+    expect(flatPlateRegime(5e5).explanation).toMatch(/transition expected about 100 % of the length/);
+    // Through the entry, with a fluid whose nu is exact: U L/nu = 10 m/s × 0.75 m / 1.5e-5 m²/s = 5e5.
+    const exact = call('fluid', { rho: si(1, 'kg/m^3'), mu: si(1.5e-5, 'Pa s') }).value;
+    const r = asRecord(call('flow_regime', { U: si(10, 'm/s'), L: si(0.75, 'm'), fluid: exact }).value);
+    expect(r.fields.get('regime')!.value).toEqual({ kind: 'string', value: 'transitional' });
+  });
+
+  it('turbulent once transition lies within the first 10 % of the length (our rule), transitional before', () => {
+    // Transition at Re_x = 5e5: a share of 5e5/Re of the length is laminar.
+    expect(flatPlateRegime(4.9e6).regime).toBe('transitional'); // 10.2 % laminar
+    expect(flatPlateRegime(5.1e6).regime).toBe('turbulent'); // 9.8 % laminar
+    expect(flatPlateRegime(4.9e6).laminarShare).toBeCloseTo(5e5 / 4.9e6, 15);
+    expect(flatPlateRegime(4e5).laminarShare).toBe(1);
   });
 
   it('returns Re, Ma, q and regime, with a compressibility warning above Ma 0.3', () => {
@@ -91,9 +119,23 @@ describe('fluid() and bad calls', () => {
     expect(() => call('mach', { U: si(2, 'm/s'), fluid: water })).toThrow(/speed of sound/);
   });
 
+  it('speeds are magnitudes: a negative U is refused by reynolds, mach and dynamic_pressure alike; zero gives zero', () => {
+    const rule = "U = −10 m/s is negative; give the speed's magnitude (speeds are not signed here)";
+    expect(() => call('reynolds', { U: si(-10, 'm/s'), L: si(1, 'm'), fluid: seaLevelAir() })).toThrow(rule);
+    expect(() => call('mach', { U: si(-10, 'm/s'), fluid: seaLevelAir() })).toThrow(rule);
+    expect(() => call('dynamic_pressure', { U: si(-10, 'm/s'), fluid: seaLevelAir() })).toThrow(rule);
+    expect(() => call('flow_regime', { U: si(-10, 'm/s'), L: si(1, 'm'), fluid: seaLevelAir() })).toThrow(rule);
+    expect(siOfValue(call('reynolds', { U: si(0, 'm/s'), L: si(1, 'm'), fluid: seaLevelAir() }).value)).toBe(0);
+    expect(siOfValue(call('dynamic_pressure', { U: si(0, 'm/s'), fluid: seaLevelAir() }).value)).toBe(0);
+    expect(siOfValue(call('mach', { U: si(0, 'm/s'), fluid: seaLevelAir() }).value)).toBe(0);
+    expect(() => call('reynolds', { U: si(Number.POSITIVE_INFINITY, 'm/s'), L: si(1, 'm'), fluid: seaLevelAir() })).toThrow('U = infinity m/s is not a finite speed');
+    expect(() => call('mach', { U: si(Number.NaN, 'm/s'), fluid: seaLevelAir() })).toThrow('U = not a number m/s is not a finite speed');
+  });
+
   it('refuses a temperature where a length belongs, and a non-positive length', () => {
     expect(() => call('reynolds', { U: si(10, 'm/s'), L: shown(20, 'degC'), fluid: seaLevelAir() })).toThrow(TradeError);
-    expect(() => call('reynolds', { U: si(10, 'm/s'), L: si(0, 'm'), fluid: seaLevelAir() })).toThrow(/above zero/);
+    expect(() => call('reynolds', { U: si(10, 'm/s'), L: si(0, 'm'), fluid: seaLevelAir() })).toThrow('the length L = 0 m must be above zero');
+    expect(() => call('reynolds', { U: si(10, 'm/s'), L: si(1, 'm'), nu: si(-1e-6, 'm^2/s') })).toThrow('the kinematic viscosity nu = −1e−6 m^2/s must be above zero');
   });
 
   it('refuses a record that is not a fluid', () => {

@@ -88,12 +88,33 @@ describe('water() as a worksheet function', () => {
     expect([...asRecord(value).fields.keys()]).toEqual(['rho', 'mu', 'nu', 'T']);
   });
 
-  it('accepts 100 °C at one standard atmosphere, the end of its stated range', () => {
-    expect(waterProperties(373.15, 101325).rho).toBeGreaterThan(950);
+  it('accepts 100 °C at one standard atmosphere, the end of its stated range: 958.35 kg/m^3', () => {
+    // Density of liquid water at 100 °C, 958.35 kg/m^3 (CRC Handbook; IAPWS-95 saturated liquid; from memory).
+    near(waterProperties(373.15, 101325).rho, 958.35, 0.005);
   });
 
-  it('refuses 120 °C in plain words', () => {
+  it('calls water steam only below its saturation pressure, with 0.1 % slack for 100 °C at 1 atm', () => {
+    // p_sat(100 °C) by IF97 Eq. 30 (checked above against Table 35) is 101 418 Pa: one standard
+    // atmosphere lies 0.09 % below it (100 °C is 0.03 K above the normal boiling point). The slack
+    // of 0.1 % that keeps it liquid is our rule; past it the water is steam.
+    const pSat = saturationPressure(373.15);
+    near(pSat, 101418, 0.5);
+    expect(waterProperties(373.15, pSat * 0.9991).rho).toBeCloseTo(958.35, 1);
+    expect(() => waterProperties(373.15, pSat * 0.9989)).toThrow(/steam/);
+    expect(() => waterProperties(323.15, 12000)).toThrow('at 50 °C water boils below 12350 Pa; got p = 12000 Pa, so this is steam, not liquid water');
+  });
+
+  it('covers pressures up to 100 MPa, the top of IF97 region 1, and says what it got', () => {
+    // Region 1 of IAPWS-IF97 spans pressures up to 100 MPa (R7-97(2012), Fig. 1).
+    near(waterProperties(300, 80e6).rho, 1 / 0.971180894e-3, 1e-6);
+    expect(() => waterProperties(300, 100.0001e6)).toThrow('water() covers pressures above 0 and up to 100 MPa; got p = 1.000001e8 Pa');
+    expect(() => waterProperties(300, 0)).toThrow(/got p = 0 Pa/);
+  });
+
+  it('refuses 120 °C in plain words, and 100.001 °C as what it is', () => {
     expect(() => call('water', { T: shown(120, 'degC'), p: si(101325, 'Pa') })).toThrow('water() covers liquid water from 0 to 100 °C; got 120 °C');
+    expect(() => call('water', { T: shown(100.001, 'degC'), p: si(101325, 'Pa') })).toThrow('water() covers liquid water from 0 to 100 °C; got 100.001 °C');
+    expect(() => call('water', { T: shown(-0.001, 'degC'), p: si(101325, 'Pa') })).toThrow('got −0.001 °C');
   });
 
   it('refuses ice temperatures and temperatures below absolute zero', () => {

@@ -66,4 +66,16 @@ describe("Spalding's law of the wall", () => {
     expect(relErr(u.si, 0.05)).toBeLessThan(1e-10);
     expect(u.dims).toEqual(si(1, 'm/s').dims);
   });
+
+  it('refuses what has no wall distance or sample', () => {
+    expect(() => spaldingUplus(-1)).toThrow('y+ must be zero or positive, not −1');
+    expect(() => spaldingUplus(Number.NaN)).toThrow('y+ must be zero or positive, not not a number');
+    expect(() => frictionVelocity(0, 1e-3, 1.5e-5)).toThrow('the sampled velocity must be positive, not 0 m/s');
+    expect(() => frictionVelocity(1, 0, 1.5e-5)).toThrow('the wall distance must be positive, not 0 m');
+    expect(() => frictionVelocity(1, 1e-3, 0)).toThrow('the kinematic viscosity must be positive, not 0 m^2/s');
+  });
+
+  it('far from the wall y+ is solved as finely as near it', () => {
+    for (const y of [2e4, 1e6]) expect(relErr(spaldingY(spaldingUplus(y), KAPPA, B), y)).toBeLessThan(1e-12);
+  });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { num, si, str, TradeError } from '../../server/core/index.js';
-import { seriesSum, solveStack } from '../../server/core/wall/layer-stack.js';
+import { layersInside, seriesSum, solveStack } from '../../server/core/wall/layer-stack.js';
 import { asRecord, call, relErr, siField } from './wall-helpers.js';
 
 // Finite geometric series (standard algebra): Σ_{i<n} y1 g^i = y1 (g^n − 1)/(g − 1); last term y1 g^(n−1).
@@ -63,8 +63,59 @@ describe('layer stack as a geometric series', () => {
     expect(relErr(seriesSum(g, 50), 50 + (50 * 49) / 2 * 1e-9)).toBeLessThan(1e-12);
   });
 
+  it('solves growth above 2 and below 0.5 by widening its bracket, and says when none reaches', () => {
+    // Three layers of ratio 3: 1 + 3 + 9 = 13 first layers; of ratio 0.25: 1 + 0.25 + 0.0625.
+    expect(solveStack({ first: Y1, count: 3, total: 13 * Y1 }).growth).toBeCloseTo(3, 12);
+    expect(solveStack({ first: Y1, count: 3, total: 1.3125 * Y1 }).growth).toBeCloseTo(0.25, 12);
+    expect(() => solveStack({ first: Y1, count: 2, total: 3e6 * Y1 })).toThrow('no growth ratio below 1e6 reaches that total');
+    expect(() => solveStack({ first: Y1, count: 3, total: (1 + 1e-13) * Y1 })).toThrow('no positive growth ratio gives that total');
+  });
+
+  it('a single layer has growth 1 only when total equals first', () => {
+    expect(solveStack({ first: Y1, count: 1, total: Y1 }).growth).toBe(1);
+    expect(() => solveStack({ first: Y1, count: 1, total: 2 * Y1 })).toThrow('a single layer has no growth ratio unless total equals first');
+    expect(solveStack({ first: Y1, growth: G, count: 1 }).total).toBe(Y1);
+  });
+
+  it('allows up to 10000 layers and no more, given or solved', () => {
+    expect(solveStack({ first: Y1, growth: 1, count: 10000 }).count).toBe(10000);
+    expect(() => solveStack({ first: Y1, growth: 1, count: 10001 })).toThrow('count 10001 is more than the 10000 layers a stack may have');
+    expect(solveStack({ first: Y1, growth: 1, total: 10000 * Y1 }).count).toBe(10000);
+    expect(() => solveStack({ first: Y1, growth: 1, total: 10000.5 * Y1 })).toThrow('the total needs 10001 layers, more than the 10000 a stack may have');
+    expect(() => solveStack({ first: Y1, growth: G, count: 0.4 })).toThrow('count must be a whole number of layers, not 0.4');
+    expect(solveStack({ first: Y1, growth: 1, total: 12 * Y1 }).count).toBe(12);
+  });
+
+  it('solves the count for layers that shrink, while their sum can still reach the total', () => {
+    // growth 0.5: the sum approaches 2 first layers; 1.75 first is three layers.
+    expect(solveStack({ first: Y1, growth: 0.5, total: 1.75 * Y1 }).count).toBe(3);
+    expect(() => solveStack({ first: Y1, growth: 0.5, total: 2 * Y1 })).toThrow('with growth 0.5 the layers shrink and their sum never passes 2 × first, short of the total');
+  });
+
+  it('a uniform stack is count × first thick, and its growth is exactly 1 within 1e-12 of count', () => {
+    expect(solveStack({ first: 1, count: 12, total: 12 * (1 + 5e-13) }).growth).toBe(1);
+    expect(solveStack({ first: Y1, growth: 1, count: 7 }).total).toBe(7 * Y1);
+    expect(solveStack({ first: Y1, count: 12, total: 12 * Y1 }).growth).toBe(1);
+    expect(solveStack({ growth: G, count: N, total: TOTAL }).solved).toBe('first');
+  });
+
+  it('refuses a count that rounds to no layer, a total no more than first, and says where shrinking layers stop', () => {
+    expect(() => solveStack({ first: Y1, growth: G, count: 1e-10 })).toThrow('count must be a whole number of layers, not 1e-10');
+    expect(() => solveStack({ first: Y1, count: 3, total: Y1 })).toThrow('total must be more than first when there are 3 layers');
+    // growth 0.7: the sum approaches 1/(1 − 0.7) = 3.333 first layers.
+    expect(() => solveStack({ first: Y1, growth: 0.7, total: 4 * Y1 })).toThrow('with growth 0.7 the layers shrink and their sum never passes 3.333 × first, short of the total');
+  });
+
+  it('counts a layer whose top meets the boundary-layer edge as inside it, float noise and all', () => {
+    // Five layers of 1 mm sum to 5.000000000000001 mm in floating point; δ = 5 mm holds all five.
+    expect(layersInside([1e-3, 1e-3, 1e-3, 1e-3, 1e-3], 5e-3)).toBe(5);
+    expect(layersInside([1e-3, 1e-3, 1e-3, 1e-3, 1e-3], 4.999e-3)).toBe(4);
+  });
+
   it('refuses anything but exactly three of the four, and impossible stacks', () => {
-    expect(() => solveStack({ first: Y1, growth: G })).toThrow(/exactly three.*given: first, growth/);
+    expect(() => solveStack({ first: Y1, growth: G })).toThrow('give exactly three of first, growth, count and total (given: first, growth)');
+    expect(() => solveStack({})).toThrow('give exactly three of first, growth, count and total (given: none)');
+    expect(() => solveStack({ first: 0, growth: G, count: N })).toThrow('first must be a positive number, not 0');
     expect(() => solveStack({ first: Y1, growth: G, count: N, total: TOTAL })).toThrow(/exactly three/);
     expect(() => solveStack({ first: Y1, growth: G, count: 2.5 })).toThrow(/whole number/);
     expect(() => solveStack({ first: Y1, count: 5, total: Y1 / 2 })).toThrow(/more than first/);
@@ -100,6 +151,17 @@ describe('layer_stack entry', () => {
     expect(text).toMatch(/growth ratio 1.4 is above about 1.3/);
     expect(text).toMatch(/core cell is .* above about 2/);
     expect(text).toMatch(/cells lie across the boundary layer/);
+  });
+
+  it('flags an implausible layer count: 1 µm growing by 1 % to 1 km takes 1620 layers (common practice: up to about 100)', () => {
+    // The count solved by hand: n = ln(1 + (total/first)(g − 1))/ln g, rounded up (geometric series).
+    const n = Math.ceil(Math.log(1 + (1e3 / 1e-6) * 0.01) / Math.log(1.01));
+    expect(n).toBe(1620);
+    const r = asRecord(call('layer_stack', { first: si(1e-6, 'm'), growth: num(1.01), total: si(1e3, 'm'), ...base }));
+    expect(siField(r, 'count')).toBe(n);
+    expect(r.warnings.join(' ')).toMatch(/1620 layers is far more than a wall-layer stack usually has \(up to about 100, common practice\)/);
+    const usual = asRecord(call('layer_stack', { first: si(Y1, 'm'), growth: num(1.1), count: num(100), ...base }));
+    expect(usual.warnings.join(' ')).not.toMatch(/layers is far more/);
   });
 
   it('raises no flag for a gentle, well-matched stack', () => {

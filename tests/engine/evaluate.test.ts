@@ -57,6 +57,24 @@ describe('dependency order', () => {
   });
 });
 
+describe('calls', () => {
+  it('a bare altitude is geopotential, a named one says which it is', async () => {
+    const r = await sheet(['a = atmosphere(11 km)', 'b = atmosphere(geometric: 11 km)', 'c = atmosphere(h: 11 km)']);
+    // Tropopause at geopotential 11 km, 216.65 K; Kutz Table 6 at geometric 11 km, 216.77 K.
+    expect(r.values.a!.fields!.T!.si).toBeCloseTo(216.65, 9);
+    expect(r.values.b!.fields!.T!.si).toBeCloseTo(216.77, 2);
+    expect(r.errors.map((e) => e.message)).toEqual(['atmosphere() has no parameter "h"; it takes geopotential, geometric']);
+  });
+
+  it('speeds are magnitudes, in the same words for every function', async () => {
+    const r = await sheet(['f = air(T: 15 degC)', 'a = reynolds(-3 m/s, 1 m, f)', 'b = first_cell(-3 m/s, 1 m, f)']);
+    expect(r.errors.map((e) => e.message)).toEqual([
+      "reynolds(): U = −3 m/s is negative; give the speed's magnitude (speeds are not signed here)",
+      "first_cell(): U = −3 m/s is negative; give the speed's magnitude (speeds are not signed here)",
+    ]);
+  });
+});
+
 describe('incremental evaluation', () => {
   it('recomputes only what depends on a changed input', () => {
     const session = new SheetPipeline();

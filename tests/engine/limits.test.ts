@@ -68,7 +68,7 @@ describe('lines past the limits', () => {
     const r = await sheet(['U = 12 m/s # ' + 'x'.repeat(MAX_LINE_CHARS * 2)]);
     expect(r.errors).toEqual([]);
     expect(si(r, 'U')).toBe(12);
-    const e = await badLine('s = "' + 'x'.repeat(MAX_LINE_CHARS) + '"');
+    const e = await badLine('label = "' + 'x'.repeat(MAX_LINE_CHARS) + '"');
     expect(e.code).toBe('limit');
   });
 

@@ -69,8 +69,8 @@ describe('inputs set for one run', () => {
   });
 
   it('gives each sweep row exactly what the run with that input set gives', async () => {
-    const swept = await renderSheet(text([...near, 's = sweep(U, [10, 25, 40] m/s, Re, wall.height)']));
-    const rows = swept.values.s!.table!.rows;
+    const swept = await renderSheet(text([...near, 'plan = sweep(U, [10, 25, 40] m/s, Re, wall.height)']));
+    const rows = swept.values.plan!.table!.rows;
     for (const [i, u] of ['10 m/s', '25 m/s', '40 m/s'].entries()) {
       const alone = await renderSheet(text(near), { overrides: { U: u } });
       expect(rows[i]![1]!.si).toBe(alone.values.Re!.si);
@@ -78,6 +78,6 @@ describe('inputs set for one run', () => {
       const check = alone.checks[0]!.passed;
       expect(check).toBe(i < 2); // the sweep says it fails at 40 m/s only
     }
-    expect(swept.values.s!.warnings).toEqual(['the check on line 7 (tall enough to mesh) holds from U = 10 m/s to U = 25 m/s; fails at U = 40 m/s']);
+    expect(swept.values.plan!.warnings).toEqual(['the check on line 7 (tall enough to mesh) holds from U = 10 m/s to U = 25 m/s; fails at U = 40 m/s']);
   });
 });

@@ -16,9 +16,9 @@ const sheet = (lines: string[]) => renderSheet('```basis\n' + lines.join('\n') +
 
 describe('sweep', () => {
   it('gives each row exactly what a separate run with that input gives', async () => {
-    const r = await sheet([...base('30 m/s'), 's = sweep(U, [10, 25, 40] m/s, Re, wall.height)']);
+    const r = await sheet([...base('30 m/s'), 'plan = sweep(U, [10, 25, 40] m/s, Re, wall.height)']);
     expect(r.errors).toEqual([]);
-    const t = r.values.s!.table!;
+    const t = r.values.plan!.table!;
     expect(t.columns).toEqual(['U', 'Re', 'wall.height']);
     for (const [i, u] of ['10 m/s', '25 m/s', '40 m/s'].entries()) {
       const alone = await sheet(base(u));
@@ -29,23 +29,23 @@ describe('sweep', () => {
   });
 
   it('runs again only what lies downstream of the swept input', async () => {
-    const r = await sheet([...base('30 m/s'), 'other = 2 * L', 's = sweep(U, [10, 20] m/s, Re)']);
+    const r = await sheet([...base('30 m/s'), 'other = 2 * L', 'plan = sweep(U, [10, 20] m/s, Re)']);
     // Re is wanted and wall feeds the check; gas, L and other are not downstream of U.
-    expect(r.values.s!.remarks!.join(' ')).toContain("(2 of the sheet's statements)");
-    const noCheck = await sheet([...base('30 m/s').slice(0, 5), 'other = 2 * L', 's = sweep(U, [10, 20] m/s, Re)']);
-    expect(noCheck.values.s!.remarks!.join(' ')).toContain("(1 of the sheet's statements)");
+    expect(r.values.plan!.remarks!.join(' ')).toContain("(2 of the sheet's statements)");
+    const noCheck = await sheet([...base('30 m/s').slice(0, 5), 'other = 2 * L', 'plan = sweep(U, [10, 20] m/s, Re)']);
+    expect(noCheck.values.plan!.remarks!.join(' ')).toContain("(1 of the sheet's statements)");
   });
 
   it('says for which rows a check downstream holds', async () => {
-    const r = await sheet([...base('30 m/s'), 's = sweep(U, [10, 20, 30, 40] m/s, wall.height)']);
-    expect(r.values.s!.warnings).toEqual(['the check on line 7 (tall enough to mesh) holds from U = 10 m/s to U = 30 m/s; fails at U = 40 m/s']);
+    const r = await sheet([...base('30 m/s'), 'plan = sweep(U, [10, 20, 30, 40] m/s, wall.height)']);
+    expect(r.values.plan!.warnings).toEqual(['the check on line 7 (tall enough to mesh) holds from U = 10 m/s to U = 30 m/s; fails at U = 40 m/s']);
   });
 
   it('shows a row that fails with its error, and the other rows', async () => {
     // A speed below zero is refused by first_cell: that row fails, the next does not.
-    const r = await sheet([...base('30 m/s'), 'wall2 = first_cell(U, L, gas, yplus: 1, method: "power")', 's = sweep(U, [-1, 20] m/s, wall2.height)']);
-    const rows = r.values.s!.table!.rows;
-    expect(rows[0]![1]!.display).toBe('⚠ line 8: first_cell(): the free-stream speed U must be positive');
+    const r = await sheet([...base('30 m/s'), 'wall2 = first_cell(U, L, gas, yplus: 1, method: "power")', 'plan = sweep(U, [-1, 20] m/s, wall2.height)']);
+    const rows = r.values.plan!.table!.rows;
+    expect(rows[0]![1]!.display).toBe("⚠ line 8: first_cell(): U = −1 m/s is negative; give the speed's magnitude (speeds are not signed here)");
     expect(rows[1]![1]!.si).toBeGreaterThan(0);
   });
 

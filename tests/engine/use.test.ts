@@ -119,9 +119,9 @@ describe('use', () => {
   });
 
   it('runs a sweep here, and says why a used name cannot be swept', async () => {
-    const p = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md"', 'U = U_inf', 'Re = U * L_ref / gas.nu', 's = sweep(U, [10, 20] m/s, Re)', 't = sweep(U_inf, [10, 20] m/s, Re)') });
+    const p = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md"', 'U = U_inf', 'Re = U * L_ref / gas.nu', 'plan = sweep(U, [10, 20] m/s, Re)', 't = sweep(U_inf, [10, 20] m/s, Re)') });
     const r = await p.run('car.md');
-    const rows = r.values.s!.table!.rows;
+    const rows = r.values.plan!.table!.rows;
     // Re = U L / nu with nu = 1.8e-5 / 1.2 = 1.5e-5 m²/s
     expect(rows[0]![1]!.si).toBeCloseTo((10 * 4.2) / 1.5e-5, 3);
     expect(rows[1]![1]!.si).toBeCloseTo((20 * 4.2) / 1.5e-5, 3);

@@ -373,7 +373,7 @@ function zoneRecord(r: RecordValue, name: string): { kind: ZoneKind; level: numb
   const area = fieldSi(r, 'area', 'm^2');
   return {
     kind: kind.value as ZoneKind,
-    level: checkLevel(fieldSi(r, 'level') ?? NaN, `${name}.level`),
+    level: checkLevel(fieldSi(r, 'level', '1') ?? NaN, `${name}.level`),
     ...(label?.kind === 'string' ? { label: label.value } : {}),
     ...(volume === undefined ? {} : { volume }),
     ...(area === undefined ? {} : { area }),
@@ -404,7 +404,7 @@ function surfaceArg(args: Args): { area: number; level: number } | undefined {
 function layersArg(args: Args): { count: number; last: number; total: number } | undefined {
   if (args.layers === undefined) return undefined;
   const r = recordArg(args, 'layers');
-  const count = fieldSi(r, 'count');
+  const count = fieldSi(r, 'count', '1');
   const last = fieldSi(r, 'last', 'm');
   const total = fieldSi(r, 'total', 'm');
   if (count === undefined || last === undefined || total === undefined) throw new TradeError('layers must be a layer_stack(…) record (with count, last and total)');

@@ -1,22 +1,17 @@
 // Worksheet entries for fluid properties and similarity numbers. The physics
 // lives in the neighbouring files as functions of SI numbers; here arguments
 // are read, results are given units, and each record says how it was made.
-import { fluidArg, optionalSi, passThrough, siArg, type FluidProps } from '../shared/args.js';
+import { bareNumber, fluidArg, optionalSi, passThrough, siArg, type FluidProps } from '../shared/args.js';
 import type { Args, TradeFunction } from '../shared/registry.js';
 import { TradeError } from '../shared/trade-error.js';
 import { num, record, si, str, type Value } from '../shared/values.js';
 import { airProperties, SUTHERLAND_RANGE_K } from './air.js';
-import { standardAtmosphere } from './atmosphere.js';
-import {
-  compressibilityWarnings,
-  dynamicPressure,
-  flatPlateRegime,
-  machNumber,
-  reynoldsNumber,
-} from './regime.js';
-import { seawaterProperties } from './seawater.js';
+import { atmosphereAt, GEOMETRIC_TOP, GEOPOTENTIAL_TOP } from './atmosphere.js';
+import { compressibilityWarnings } from '../shared/flow.js';
+import { dynamicPressure, flatPlateRegime, machNumber, reynoldsNumber } from './regime.js';
+import { SEAWATER_S_MAX, seawaterProperties } from './seawater.js';
 import { waterProperties } from './water.js';
-import { celsiusText, numberText } from '../shared/words.js';
+import { celsiusText, exactText, numberText } from '../shared/words.js';
 
 const FLUID = 'fluid';
 
@@ -46,6 +41,9 @@ const air: TradeFunction = {
     const T = siArg(args, 'T', 'K');
     const p = siArg(args, 'p', 'Pa');
     const RH = siArg(args, 'RH');
+    if (RH > 1 && bareNumber(args, 'RH')) {
+      throw new TradeError(`RH = ${exactText(RH)} has no unit, so it reads as ${exactText(RH * 100)} %; write it with its unit, e.g. RH: ${exactText(RH)} %`);
+    }
     const air = airProperties(T, p, RH);
     const warnings: string[] = [];
     if (T < SUTHERLAND_RANGE_K[0] || T > SUTHERLAND_RANGE_K[1]) {
@@ -75,12 +73,23 @@ const air: TradeFunction = {
 
 const atmosphere: TradeFunction = {
   name: 'atmosphere',
-  params: [{ name: 'h', type: 'quantity', unit: 'm', doc: 'geopotential altitude, 0 to 20 km' }],
-  doc: 'the International Standard Atmosphere at a geopotential altitude from 0 to 20 km',
-  source: 'ISO 2533:1975 International Standard Atmosphere (identical to the U.S. Standard Atmosphere 1976 up to 20 km); viscosity by Sutherland\'s law with its constants',
-  example: 'atmosphere(3000 m)',
+  params: [
+    { name: 'geopotential', type: 'quantity', unit: 'm', optional: true, doc: `geopotential altitude H, 0 to ${GEOPOTENTIAL_TOP / 1000} km (what a bare first argument is)` },
+    { name: 'geometric', type: 'quantity', unit: 'm', optional: true, doc: `geometric altitude Z above sea level, 0 to ${GEOMETRIC_TOP / 1000} km, as handbook tables and aircraft data give it` },
+  ],
+  doc: 'the International Standard Atmosphere from 0 to 20 km geopotential, at a geopotential or a geometric altitude',
+  source:
+    "ISO 2533:1975 International Standard Atmosphere (identical to the U.S. Standard Atmosphere 1976 up to 20 km); H = r0 Z/(r0 + Z), r0 = 6 356 766 m (USSA-1976); viscosity by Sutherland's law with its constants",
+  example: 'atmosphere(geometric: 3000 m)',
   compute(args) {
-    const s = standardAtmosphere(siArg(args, 'h', 'm'));
+    const H = optionalSi(args, 'geopotential', 'm');
+    const Z = optionalSi(args, 'geometric', 'm');
+    if ((H === undefined) === (Z === undefined)) {
+      throw new TradeError(H === undefined ? 'give an altitude: geopotential: … or geometric: …' : 'give the altitude once: geopotential or geometric, not both');
+    }
+    const s = atmosphereAt(H === undefined ? { geometric: Z! } : { geopotential: H });
+    const m = (x: number) => `${numberText(x, { digits: 6 })} m`;
+    const given = H === undefined ? `geometric altitude Z = ${m(s.Z)} (geopotential H = ${m(s.H)})` : `geopotential altitude H = ${m(s.H)} (geometric Z = ${m(s.Z)})`;
     return record(
       [
         ['T', si(s.T, 'K'), 'temperature'],
@@ -89,8 +98,10 @@ const atmosphere: TradeFunction = {
         muField(s.mu),
         nuField(s.nu),
         ['a', si(s.a, 'm/s'), 'speed of sound'],
+        ['H', si(s.H, 'm'), 'geopotential altitude'],
+        ['Z', si(s.Z, 'm'), 'geometric altitude'],
       ],
-      { remarks: ['International Standard Atmosphere (ISO 2533:1975), dry air, at geopotential altitude.'], tag: FLUID },
+      { remarks: [`International Standard Atmosphere (ISO 2533:1975), dry air, at ${given}.`], tag: FLUID },
     );
   },
 };
@@ -123,7 +134,11 @@ const seawater: TradeFunction = {
   source: 'Sharqawy, Lienhard and Zubair (2010), Thermophysical properties of seawater, Desalination and Water Treatment 16, 354-380: density Eq. 8, viscosity Eqs. 22-23',
   example: 'seawater(10 degC, S: 35 g/kg)',
   compute(args) {
-    const s = seawaterProperties(siArg(args, 'T', 'K'), siArg(args, 'S'));
+    const S = siArg(args, 'S');
+    if (S > SEAWATER_S_MAX && bareNumber(args, 'S')) {
+      throw new TradeError(`S = ${exactText(S)} has no unit, so it reads as ${exactText(S * 1000)} g/kg; write salinity with its unit, e.g. S: ${exactText(S)} g/kg`);
+    }
+    const s = seawaterProperties(siArg(args, 'T', 'K'), S);
     return record(
       [
         rhoField(s.rho),
@@ -154,9 +169,9 @@ const fluid: TradeFunction = {
     const rho = siArg(args, 'rho', 'kg/m^3');
     const mu = siArg(args, 'mu', 'Pa s');
     const a = optionalSi(args, 'a', 'm/s');
-    if (!(rho > 0)) throw new TradeError(`rho = ${numberText(rho, { digits: 4 })} kg/m^3: the density must be above zero`);
-    if (!(mu > 0)) throw new TradeError(`mu = ${numberText(mu, { digits: 4 })} Pa s: the viscosity must be above zero`);
-    if (a !== undefined && !(a > 0)) throw new TradeError(`a = ${numberText(a, { digits: 4 })} m/s: the speed of sound must be above zero`);
+    if (!(rho > 0)) throw new TradeError(`rho = ${exactText(rho)} kg/m^3: the density must be above zero`);
+    if (!(mu > 0)) throw new TradeError(`mu = ${exactText(mu)} Pa s: the viscosity must be above zero`);
+    if (a !== undefined && !(a > 0)) throw new TradeError(`a = ${exactText(a)} m/s: the speed of sound must be above zero`);
     const entries = [rhoField(rho), muField(mu), nuField(mu / rho)];
     if (a !== undefined) entries.push(['a', si(a, 'm/s'), 'speed of sound']);
     return record(entries, { remarks: ['Fluid properties given by the sheet.'], tag: FLUID });

@@ -4,7 +4,7 @@
 // viscosity Eqs. (22)-(23) (equation numbers as recalled). Salinity S is in kg/kg (35 g/kg = 0.035).
 import { TradeError } from '../shared/trade-error.js';
 import { checkAbsolute } from './air.js';
-import { celsiusText, numberText } from '../shared/words.js';
+import { celsiusText, EXACT, exactText } from '../shared/words.js';
 
 /** Range where both correlations hold (the viscosity one ends at 150 g/kg); capped at 100 °C, boiling at 1 atm. */
 export const SEAWATER_T_RANGE_K = [273.15, 373.15] as const;
@@ -19,11 +19,10 @@ export interface SeawaterProperties {
 export function seawaterProperties(T: number, S: number): SeawaterProperties {
   checkAbsolute(T);
   if (T < SEAWATER_T_RANGE_K[0] || T > SEAWATER_T_RANGE_K[1]) {
-    throw new TradeError(`seawater() covers 0 to 100 \u00b0C; got ${celsiusText(T)}`);
+    throw new TradeError(`seawater() covers 0 to 100 \u00b0C; got ${celsiusText(T, EXACT)}`);
   }
   if (!(S >= 0 && S <= SEAWATER_S_MAX)) {
-    const hint = S > 1 && S <= 150 ? `; write salinity with its unit, e.g. S: ${numberText(S, { digits: 4 })} g/kg` : '';
-    throw new TradeError(`seawater() covers salinities from 0 to 150 g/kg; got ${numberText(S * 1000, { digits: 4 })} g/kg${hint}`);
+    throw new TradeError(`seawater() covers salinities from 0 to 150 g/kg; got ${exactText(S * 1000)} g/kg`);
   }
   const t = T - 273.15;
   const rho = pureWaterDensity(t) + S * (802.0 - 2.001 * t + 1.677e-2 * t ** 2 - 3.06e-5 * t ** 3 - 1.613e-5 * S * t ** 2);

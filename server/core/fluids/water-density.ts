@@ -7,16 +7,9 @@ const P_STAR = 16.53e6; // Pa
 const T_STAR = 1386; // K
 const R_WATER = 461.526; // J/(kg K), specific gas constant of IF97
 
-// [I, J, n] of region 1.
+// [I, J, n] of region 1 (Table 2), the terms with I ≥ 1: the eight with I = 0
+// do not depend on π, so they drop out of γπ and the specific volume.
 const TERMS: ReadonlyArray<readonly [number, number, number]> = [
-  [0, -2, 0.14632971213167],
-  [0, -1, -0.84548187169114],
-  [0, 0, -0.3756360367204e1],
-  [0, 1, 0.33855169168385e1],
-  [0, 2, -0.95791963387872],
-  [0, 3, 0.15772038513228],
-  [0, 4, -0.16616417199501e-1],
-  [0, 5, 0.81214629983568e-3],
   [1, -9, 0.28319080123804e-3],
   [1, -7, -0.60706301565874e-3],
   [1, -1, -0.18990068218419e-1],
@@ -50,10 +43,7 @@ export function waterSpecificVolume(T: number, p: number): number {
   const pi = p / P_STAR;
   const tau = T_STAR / T;
   let gammaPi = 0;
-  for (const [I, J, n] of TERMS) {
-    if (I === 0) continue;
-    gammaPi -= n * I * Math.pow(7.1 - pi, I - 1) * Math.pow(tau - 1.222, J);
-  }
+  for (const [I, J, n] of TERMS) gammaPi -= n * I * Math.pow(7.1 - pi, I - 1) * Math.pow(tau - 1.222, J);
   return (pi * gammaPi * R_WATER * T) / p;
 }
 

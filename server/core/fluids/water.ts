@@ -5,7 +5,7 @@ import { checkAbsolute } from './air.js';
 import { saturationPressure } from './saturation.js';
 import { waterDensity } from './water-density.js';
 import { waterViscosity } from './water-viscosity.js';
-import { celsiusText, numberText } from '../shared/words.js';
+import { celsiusText, EXACT, exactText, numberText } from '../shared/words.js';
 
 export const WATER_RANGE_K = [273.15, 373.15] as const;
 /** Upper pressure limit of IF97 region 1. */
@@ -25,14 +25,14 @@ export interface WaterProperties {
 export function waterProperties(T: number, p: number): WaterProperties {
   checkAbsolute(T);
   if (T < WATER_RANGE_K[0] || T > WATER_RANGE_K[1]) {
-    throw new TradeError(`water() covers liquid water from 0 to 100 \u00b0C; got ${celsiusText(T)}`);
+    throw new TradeError(`water() covers liquid water from 0 to 100 \u00b0C; got ${celsiusText(T, EXACT)}`);
   }
   if (!(p > 0 && p <= P_MAX)) {
-    throw new TradeError(`water() covers pressures above 0 and up to 100 MPa; got p = ${numberText(p, { digits: 4 })} Pa`);
+    throw new TradeError(`water() covers pressures above 0 and up to 100 MPa; got p = ${exactText(p)} Pa`);
   }
   const pSat = saturationPressure(T);
   if (p < pSat * (1 - BOILING_SLACK)) {
-    throw new TradeError(`at ${celsiusText(T)} water boils below ${numberText(pSat, { digits: 4 })} Pa; got p = ${numberText(p, { digits: 4 })} Pa, so this is steam, not liquid water`);
+    throw new TradeError(`at ${celsiusText(T)} water boils below ${numberText(pSat, { digits: 4 })} Pa; got p = ${exactText(p)} Pa, so this is steam, not liquid water`);
   }
   const rho = waterDensity(T, p);
   const mu = waterViscosity(T, rho);

@@ -1,6 +1,6 @@
 // Basic maths for worksheets. Functions of plain numbers reject units; sqrt and
 // abs/min/max keep them. Trigonometric arguments are in radians (deg converts).
-import { power, quantity, type Quantity } from '../../units/quantity.js';
+import { add, power, quantity, withSi, type Quantity } from '../../units/quantity.js';
 import { dimsEqual, isDimensionless } from '../../units/dims.js';
 import { unitLabel } from '../../units/labels.js';
 import { ANY_DIMENSION, type Args, type ParamSpec, type TradeFunction } from '../shared/registry.js';
@@ -89,7 +89,8 @@ export const mathsEntries: TradeFunction[] = [
     example: 'abs(-3 m/s)',
     compute(args) {
       const v = q(args);
-      return quantity(Math.abs(v.si), v.dims, v.unit?.offset ? undefined : v.unit);
+      // SI values of absolute temperatures are never negative; a difference stays a difference.
+      return withSi(v, Math.abs(v.si));
     },
   },
   unary('exp', 'e to the power x', Math.exp, 'exp(1)'),
@@ -117,7 +118,8 @@ export const mathsEntries: TradeFunction[] = [
       if (!dimsEqual(a.dims, b.dims)) throw new TradeError(`start and stop must have the same unit (${unitLabel(a.dims)} and ${unitLabel(b.dims)})`);
       if (!Number.isInteger(n) || n < 2 || n > 100_000) throw new TradeError(`count must be a whole number from 2 to 100000, not ${n}`);
       const items: Value[] = [];
-      for (let i = 0; i < n; i++) items.push(quantity(a.si + ((b.si - a.si) * i) / (n - 1), a.dims, a.unit?.offset ? undefined : a.unit));
+      // Each value keeps the start's unit and temperature sense: linspace(10 degC, 20 degC, 3) are temperatures.
+      for (let i = 0; i < n; i++) items.push(withSi(a, a.si + ((b.si - a.si) * i) / (n - 1)));
       return { kind: 'list', items };
     },
   },
@@ -140,19 +142,15 @@ export const mathsEntries: TradeFunction[] = [
     compute(args) {
       const items = collect(args);
       if (items.length === 0) throw new TradeError('mean of an empty list');
-      const t = total(items);
-      return quantity(t.si / items.length, t.dims, t.unit);
+      // The mean of temperatures is a temperature: averaged in kelvin, shown like the first.
+      for (const v of items) if (!dimsEqual(v.dims, items[0]!.dims)) throw new TradeError(`cannot add ${unitLabel(v.dims)} to ${unitLabel(items[0]!.dims)}`);
+      return withSi(items[0]!, items.reduce((s, v) => s + v.si, 0) / items.length);
     },
   },
 ];
 
+/** The sum by the rules of `+`: two absolute temperatures never add, differences stay differences. */
 function total(items: Quantity[]): Quantity {
   if (items.length === 0) return num(0);
-  const dims = items[0]!.dims;
-  let s = 0;
-  for (const v of items) {
-    if (!dimsEqual(v.dims, dims)) throw new TradeError(`cannot add ${unitLabel(v.dims)} to ${unitLabel(dims)}`);
-    s += v.si;
-  }
-  return quantity(s, dims, items[0]!.unit?.offset ? undefined : items[0]!.unit);
+  return items.slice(1).reduce((s, v) => add(s, v), items[0]!);
 }

@@ -2,12 +2,12 @@
 // the plain SI number, text or record the maths needs, or throws TradeError
 // in words that name the argument.
 import { inUnit, parseUnit } from '../../units/quantity.js';
-import { dimsEqual } from '../../units/dims.js';
+import { dimsEqual, TEMPERATURE } from '../../units/dims.js';
 import { unitLabel } from '../../units/labels.js';
 import type { Args } from './registry.js';
 import { TradeError } from './trade-error.js';
 import { describeValue, type RecordValue, type Value } from './values.js';
-import { quotedList } from './words.js';
+import { numberText, quotedList } from './words.js';
 
 function present(args: Args, name: string): Value {
   const v = args[name];
@@ -26,7 +26,19 @@ export function siOf(v: Value, unit: string, name: string): number {
   if (!dimsEqual(v.dims, u.dims)) {
     throw new TradeError(`${name} must be ${unit === '1' ? 'a plain number' : `in ${unitLabel(u.dims)}`}, not ${describeValue(v)}`);
   }
+  // A parameter in K takes a temperature; a difference of two is not one.
+  if (v.interval && dimsEqual(u.dims, TEMPERATURE)) {
+    throw new TradeError(
+      `${name} is a temperature difference (${numberText(v.si, { digits: 4 })} K), not a temperature; give an absolute temperature such as 20 degC or 293.15 K`,
+    );
+  }
   return u.offset ? inUnit(v, u) : v.si / u.factor;
+}
+
+/** A plain number written without a unit (60, not 60 %): worth a hint when it is out of range. */
+export function bareNumber(args: Args, name: string): boolean {
+  const v = args[name];
+  return v?.kind === 'quantity' && v.unit === undefined && v.dims.every((d) => d === 0);
 }
 
 export function optionalSi(args: Args, name: string, unit = '1'): number | undefined {
@@ -71,7 +83,7 @@ export function siListArg(args: Args, name: string, unit = '1'): number[] {
 }
 
 /** A field of a record as an SI number, or undefined when the record lacks it. */
-export function fieldSi(r: RecordValue, field: string, unit = '1'): number | undefined {
+export function fieldSi(r: RecordValue, field: string, unit: string): number | undefined {
   const f = r.fields.get(field);
   return f ? siOf(f.value, unit, field) : undefined;
 }

@@ -27,13 +27,27 @@ export function numberText(x: number, style: NumberStyle = {}): string {
 
 function exponentText(x: number, digits: number): string {
   const [mantissa, exponent] = x.toExponential(Math.max(0, digits - 1)).split('e');
-  const m = mantissa!.includes('.') ? mantissa!.replace(/0+$/, '').replace(/\.$/, '') : mantissa!;
+  // A mantissa without a point has one non-zero digit, so stripping trailing zeros is safe either way.
+  const m = mantissa!.replace(/0+$/, '').replace(/\.$/, '');
   return `${m}e${exponent!.replace('+', '')}`;
 }
 
-/** A temperature given in kelvin, written in °C for the reader. */
-export function celsiusText(T: number): string {
-  return `${numberText(T - 273.15, { digits: 4 })} \u00b0C`;
+/**
+ * Significant figures for a value a message refuses: enough to show every digit
+ * a sheet gave (20000.001 m is not "20000 m"), few enough to hide floating-point
+ * noise (373.151 K − 273.15 is 100.001 °C, not 100.00100000000003).
+ */
+export const EXACT = 15;
+
+/** A refused value in full: 20000.001 → "20000.001", −1e-9 → "−1e−9". */
+export function exactText(x: number): string {
+  return numberText(x, { digits: EXACT });
+}
+
+/** A temperature given in kelvin, written in °C for the reader (EXACT digits for a refused one). */
+export function celsiusText(T: number, digits = 4): string {
+  // Rounded to 1e-10 K first: the subtraction leaves noise near 1e-13 that EXACT digits would show.
+  return `${numberText(Math.round((T - 273.15) * 1e10) / 1e10, { digits })} \u00b0C`;
 }
 
 /** A length in m shown in µm, mm or m by its size: 2.3e-5 → "23 µm". */

@@ -2,7 +2,8 @@
 // first-cell height and y+, the law of the wall, wall-layer stacks and the y+
 // report of a run. The maths lives in the sibling files as functions of SI
 // numbers; here arguments are read and results are given units and words.
-import { choiceArg, fluidArg, optionalSi, siArg, siListArg, stringArg } from '../shared/args.js';
+import { choiceArg, fluidArg, optionalSi, siArg, siListArg, stringArg, type FluidProps } from '../shared/args.js';
+import { compressibilityWarnings } from '../shared/flow.js';
 import type { Args, TradeFunction } from '../shared/registry.js';
 import { TradeError } from '../shared/trade-error.js';
 import { figure, list, num, record, shown, si, str, type Value } from '../shared/values.js';
@@ -13,7 +14,7 @@ import { histogramSvg } from './histogram-svg.js';
 import { B, frictionVelocity, KAPPA, spaldingUplus } from './law-of-wall.js';
 import { layersInside, solveStack, STACK_LIMITS, type Stack } from './layer-stack.js';
 import { readWallSamples } from './samples.js';
-import { skinFriction, SKIN_FRICTION_METHODS, type SkinFrictionMethod } from './skin-friction.js';
+import { skinFriction, SKIN_FRICTION_KINDS, SKIN_FRICTION_METHODS, type SkinFrictionMethod } from './skin-friction.js';
 import { stackSvg, type StackScale } from './stack-svg.js';
 import { correctedFirst, yplusStats } from './yplus-report.js';
 
@@ -44,15 +45,25 @@ const PLACEMENT_PARAM = {
 const FLUID = { name: 'fluid', type: 'fluid', doc: 'a fluid record with rho and mu (or nu), e.g. air(T: 20 degC)' } as const;
 const LOG_LAYER_TOP = 300;
 
+/** The flat-plate formulas are incompressible: say so when the fluid's speed of sound puts the flow above Ma 0.3. */
+function incompressibleOnly(U: number, fluid: FluidProps, what: string): string[] {
+  if (fluid.a === undefined) return [];
+  return compressibilityWarnings(U / fluid.a).map((w) => `${w}; the flat-plate formulas here are for incompressible flow, so ${what} is only a rough estimate.`);
+}
+
 const skin_friction: TradeFunction = {
   name: 'skin_friction',
-  params: [{ name: 'Re_x', type: 'quantity', unit: '1', doc: 'Reynolds number built on the distance from the leading edge' }, METHOD_PARAM],
-  doc: 'local skin-friction coefficient of a smooth flat plate (ittc1957 gives the mean coefficient)',
+  params: [
+    { name: 'Re_x', type: 'quantity', unit: '1', doc: 'Reynolds number: on the distance from the leading edge (local), or on the plate length (mean)' },
+    METHOD_PARAM,
+    { name: 'kind', type: 'string', default: '"local"', choices: SKIN_FRICTION_KINDS, doc: 'local coefficient c_f at Re_x, or the mean C_F over a plate of that Reynolds number (ittc1957 has only the mean)' },
+  ],
+  doc: 'skin-friction coefficient of a smooth flat plate: local c_f (the default) or the mean C_F over the length',
   source:
-    'Blasius (1908) laminar; Schlichting, Boundary-Layer Theory 7th ed., footnote to Eq. 21.16 and Eq. 21.12 (one-seventh power law); ITTC 1957 line; White, Viscous Fluid Flow 3rd ed. ch. 6',
+    'Blasius (1908) laminar, 0.664/1.328; Schlichting, Boundary-Layer Theory 7th ed., Eq. 21.16 and its footnote, and Eq. 21.12 (one-seventh power law, mean 0.074 after Prandtl); ITTC 1957 line (mean only); White, Viscous Fluid Flow 3rd ed. ch. 6',
   example: 'skin_friction(1e6, method: "schlichting")',
   compute(args, ctx) {
-    const r = skinFriction(siArg(args, 'Re_x'), methodArg(args));
+    const r = skinFriction(siArg(args, 'Re_x'), methodArg(args), choiceArg(args, 'kind', SKIN_FRICTION_KINDS));
     r.warnings.forEach((w) => ctx.warn(w));
     return num(r.cf);
   },
@@ -69,8 +80,9 @@ const boundary_layer: TradeFunction = {
   source: 'Blasius (1908) laminar similarity solution (δ99 = 4.91 x/√Re_x); Prandtl one-seventh power law, Schlichting Eq. 21.8 (δ = 0.37 x Re_x^-1/5)',
   example: 'boundary_layer(30 m/s, 4 m, air(T: 20 degC))',
   compute(args) {
-    const { nu } = fluidArg(args);
-    const bl = boundaryLayer(siArg(args, 'U', 'm/s'), siArg(args, 'x', 'm'), nu);
+    const fluid = fluidArg(args);
+    const U = siArg(args, 'U', 'm/s');
+    const bl = boundaryLayer(U, siArg(args, 'x', 'm'), fluid.nu);
     const remark =
       bl.regime === 'laminar'
         ? 'Laminar (Re_x below 5e5): Blasius, δ99 = 4.91 x/√Re_x, δ* = 1.721 x/√Re_x, θ = 0.664 x/√Re_x.'
@@ -83,7 +95,7 @@ const boundary_layer: TradeFunction = {
         ['theta', si(bl.theta, 'm'), 'momentum thickness'],
         ['regime', str(bl.regime), 'laminar below Re_x = 5e5'],
       ],
-      { warnings: bl.warnings, remarks: [remark, 'Smooth flat plate at zero pressure gradient: on a body, an estimate of the wall layer, not its local value.'], tag: 'boundary layer' },
+      { warnings: [...bl.warnings, ...incompressibleOnly(U, fluid, 'δ')], remarks: [remark, 'Smooth flat plate at zero pressure gradient: on a body, an estimate of the wall layer, not its local value.'], tag: 'boundary layer' },
     );
   },
 };
@@ -102,18 +114,19 @@ const first_cell: TradeFunction = {
   source: 'τ_w = ½ρU²c_f, u_τ = √(τ_w/ρ), l_visc = ν/u_τ (Pope, Turbulent Flows, 2000, §7.1); c_f from skin_friction at Re_L',
   example: 'first_cell(30 m/s, 4 m, air(T: 20 degC), yplus: 1)',
   compute(args) {
-    const { rho, nu } = fluidArg(args);
+    const fluid = fluidArg(args);
     const method = methodArg(args);
     const placement = placementArg(args);
     const target = siArg(args, 'yplus');
-    const c = firstCell(siArg(args, 'U', 'm/s'), siArg(args, 'L', 'm'), rho, nu, target, method, placement);
-    const warnings = [...c.warnings, ...bandWarnings(target)];
+    const U = siArg(args, 'U', 'm/s');
+    const c = firstCell(U, siArg(args, 'L', 'm'), fluid.rho, fluid.nu, target, method, placement);
+    const warnings = [...c.warnings, ...bandWarnings(target), ...incompressibleOnly(U, fluid, 'the wall shear and so the first-cell height')];
     const remarks = [
       `Targets the ${c.band}. ${wallTreatment(c.band)}`,
       placement === 'centroid'
         ? 'Target y+ met at the first cell centre (cell-centred solvers): height = 2 × y+ × l_visc.'
         : 'Target y+ met at the first cell top: height = y+ × l_visc.',
-      `c_f by ${method} at Re built on L, the lowest along the body; near the nose τ_w is higher and so is y+, so check the run with yplus_report.`,
+      `c_f by ${method} (${c.source}) at Re built on L, the lowest along the body; near the nose τ_w is higher and so is y+, so check the run with yplus_report.`,
     ];
     return record(
       [
@@ -157,9 +170,10 @@ const yplus: TradeFunction = {
   source: 'y+ = y u_τ/ν with u_τ from τ_w = ½ρU²c_f (Pope, Turbulent Flows, 2000, §7.1); c_f from skin_friction at Re_L',
   example: 'yplus(40 um, 30 m/s, 4 m, air(T: 20 degC))',
   compute(args, ctx) {
-    const { rho, nu } = fluidArg(args);
-    const r = yplusOf(siArg(args, 'height', 'm'), siArg(args, 'U', 'm/s'), siArg(args, 'L', 'm'), rho, nu, methodArg(args), placementArg(args));
-    [...r.warnings, ...bandWarnings(r.yplus)].forEach((w) => ctx.warn(w));
+    const fluid = fluidArg(args);
+    const U = siArg(args, 'U', 'm/s');
+    const r = yplusOf(siArg(args, 'height', 'm'), U, siArg(args, 'L', 'm'), fluid.rho, fluid.nu, methodArg(args), placementArg(args));
+    [...r.warnings, ...bandWarnings(r.yplus), ...incompressibleOnly(U, fluid, 'y+')].forEach((w) => ctx.warn(w));
     return num(r.yplus);
   },
 };
@@ -234,30 +248,37 @@ const layer_stack: TradeFunction = {
       ['last', si(s.last, 'm'), 'last (outermost) layer height'],
       ['heights', list(s.heights.map((h) => si(h, 'm'))), 'layer heights from the wall out'],
     ];
-    const inside = delta === undefined ? undefined : layersInside(s.heights, delta);
+    const layer = delta === undefined ? undefined : { delta, inside: layersInside(s.heights, delta) };
     if (core !== undefined) fields.push(['jump', num(core / s.last), 'core cell / last layer']);
-    if (delta !== undefined) {
-      fields.push(['inside', num(inside!), 'layers inside the boundary layer']);
-      fields.push(['coverage', num(s.total / delta), 'stack thickness / δ']);
+    if (layer) {
+      fields.push(['inside', num(layer.inside), 'layers inside the boundary layer']);
+      fields.push(['coverage', num(s.total / layer.delta), 'stack thickness / δ']);
     }
     return record(fields, {
-      warnings: stackWarnings(s, core, delta, inside),
+      warnings: stackWarnings(s, core, layer),
       remarks: stackRemarks(s, delta),
-      figure: figure(stackSvg({ heights: s.heights, growth: s.growth, scale, ...(delta === undefined ? {} : { delta }), ...(core === undefined ? {} : { core }) }), `Wall-layer stack to scale (${scale} axis)`),
+      figure: figure(stackSvg({ heights: s.heights, growth: s.growth, scale, delta, core }), `Wall-layer stack to scale (${scale} axis)`),
       tag: 'layer stack',
     });
   },
 };
 
 /** Rules of thumb (common practice): gentle growth, a small jump to the core, ten or more cells across δ. */
-function stackWarnings(s: Stack, core: number | undefined, delta: number | undefined, inside: number | undefined): string[] {
+function stackWarnings(s: Stack, core: number | undefined, layer: { delta: number; inside: number } | undefined): string[] {
   const w: string[] = [];
   if (s.growth > STACK_LIMITS.growth) w.push(`growth ratio ${numberText(s.growth)} is above about ${STACK_LIMITS.growth} (common practice); neighbouring layers differ too much in size.`);
   if (s.growth < 1) w.push(`growth ratio ${numberText(s.growth)} is below 1: the layers get thinner away from the wall.`);
+  if (s.count > STACK_LIMITS.count) {
+    w.push(
+      `${s.count} layers is far more than a wall-layer stack usually has (up to about ${STACK_LIMITS.count}, common practice); ` +
+        `check first, growth and total (${lengthText(s.total)}): a total past the boundary layer belongs to the core mesh.`,
+    );
+  }
   if (core !== undefined && core / s.last > STACK_LIMITS.jump) {
     w.push(`the core cell is ${numberText(core / s.last)} × the last layer, above about ${STACK_LIMITS.jump} (common practice); add layers or shrink the core cells near the wall.`);
   }
-  if (delta !== undefined && inside !== undefined) {
+  if (layer) {
+    const { delta, inside } = layer;
     // Core cells above the stack also lie across δ when the stack is thinner than δ.
     const across = inside + (core !== undefined && s.total < delta ? (delta - s.total) / core : 0);
     if (across < STACK_LIMITS.cellsAcross) {
@@ -269,14 +290,15 @@ function stackWarnings(s: Stack, core: number | undefined, delta: number | undef
 
 function stackRemarks(s: Stack, delta: number | undefined): string[] {
   const r = [`Solved for ${s.solved}.`];
-  if (s.solved === 'count' && s.askedTotal !== undefined && Math.abs(s.total - s.askedTotal) > 1e-9 * s.askedTotal) {
+  // askedTotal is set only when the count was solved; the rounding is worth a word only where it shows.
+  if (s.askedTotal !== undefined && lengthText(s.total) !== lengthText(s.askedTotal)) {
     r.push(`The count is rounded up to whole layers, so the stack is ${lengthText(s.total)} thick rather than the ${lengthText(s.askedTotal)} asked for.`);
   }
   if (delta !== undefined) {
     r.push(
       s.total < delta
         ? `The stack covers ${numberText((100 * s.total) / delta)} % of δ; the rest of the boundary layer lies in the core mesh.`
-        : `The stack reaches past the boundary-layer edge (${numberText((100 * s.total) / delta)} % of δ).`,
+        : `The stack reaches the boundary-layer edge${s.total > delta ? ' and past it' : ''} (${numberText((100 * s.total) / delta)} % of δ).`,
     );
   }
   return r;

@@ -1,7 +1,9 @@
 // First-cell height for a target y+, and its inverse, from a flat-plate
 // skin-friction estimate at the body length (Re built on L).
+import { checkSpeed } from '../shared/flow.js';
 import { TradeError } from '../shared/trade-error.js';
-import { skinFriction, type SkinFrictionMethod } from './skin-friction.js';
+import { exactText } from '../shared/words.js';
+import { hasKind, skinFriction, type SkinFrictionMethod } from './skin-friction.js';
 
 export const PLACEMENTS = ['centroid', 'height'] as const;
 export type Placement = (typeof PLACEMENTS)[number];
@@ -36,6 +38,8 @@ export function wallTreatment(band: Band): string {
 export interface WallScales {
   Re: number;
   cf: number;
+  /** The skin-friction formula used and its source. */
+  source: string;
   tau_w: number;
   u_tau: number;
   l_visc: number;
@@ -44,13 +48,16 @@ export interface WallScales {
 
 /** τ_w = ½ ρ U² c_f, u_τ = √(τ_w/ρ), l_visc = ν/u_τ (definitions; e.g. Pope 2000, §7.1). */
 export function wallScales(U: number, L: number, rho: number, nu: number, method: SkinFrictionMethod): WallScales {
-  if (!(U > 0)) throw new TradeError('the free-stream speed U must be positive');
-  if (!(L > 0)) throw new TradeError('the reference length L must be positive');
+  checkSpeed(U, 'U', true);
+  if (!(L > 0)) throw new TradeError(`the reference length L = ${exactText(L)} m must be positive`);
   const Re = (U * L) / nu;
-  const { cf, warnings } = skinFriction(Re, method);
+  // The local coefficient at L; a method with only a mean one (ittc1957) gives that, and says so.
+  const kind = hasKind(method, 'local') ? 'local' : 'mean';
+  const { cf, source, warnings } = skinFriction(Re, method, kind);
+  if (kind === 'mean') warnings.push(`${method} gives only the mean coefficient over the length Re is built on, not the local value at L; τ_w and y+ follow from that mean.`);
   const tau_w = 0.5 * rho * U * U * cf;
   const u_tau = Math.sqrt(tau_w / rho);
-  return { Re, cf, tau_w, u_tau, l_visc: nu / u_tau, warnings };
+  return { Re, cf, source, tau_w, u_tau, l_visc: nu / u_tau, warnings };
 }
 
 export interface FirstCell extends WallScales {
@@ -66,7 +73,7 @@ export interface FirstCell extends WallScales {
 export function firstCell(
   U: number, L: number, rho: number, nu: number, yplus: number, method: SkinFrictionMethod, placement: Placement,
 ): FirstCell {
-  if (!(yplus > 0)) throw new TradeError('the target y+ must be positive');
+  if (!(yplus > 0)) throw new TradeError(`the target y+ must be positive, not ${exactText(yplus)}`);
   const s = wallScales(U, L, rho, nu, method);
   const atTarget = yplus * s.l_visc;
   const height = placement === 'centroid' ? 2 * atTarget : atTarget;
@@ -77,7 +84,7 @@ export function firstCell(
 export function yplusOf(
   height: number, U: number, L: number, rho: number, nu: number, method: SkinFrictionMethod, placement: Placement,
 ): { yplus: number; warnings: string[] } {
-  if (!(height > 0)) throw new TradeError('the first-cell height must be positive');
+  if (!(height > 0)) throw new TradeError(`the first-cell height must be positive, not ${exactText(height)} m`);
   const s = wallScales(U, L, rho, nu, method);
   const at = placement === 'centroid' ? height / 2 : height;
   return { yplus: at / s.l_visc, warnings: s.warnings };

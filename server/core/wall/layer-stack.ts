@@ -154,5 +154,8 @@ export function layersInside(heights: readonly number[], delta: number): number 
   return inside;
 }
 
-/** Rules of thumb for stacks (common practice; e.g. COST 732 and AIJ guidelines, stretching below 1.3). */
-export const STACK_LIMITS = { growth: 1.3, jump: 2, cellsAcross: 10 } as const;
+/**
+ * Rules of thumb for stacks (common practice; e.g. COST 732 and AIJ guidelines, stretching
+ * below 1.3); more than about 100 layers means a typing slip or a total far past δ.
+ */
+export const STACK_LIMITS = { growth: 1.3, jump: 2, cellsAcross: 10, count: 100 } as const;

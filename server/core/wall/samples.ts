@@ -33,6 +33,6 @@ export function readWallSamples(text: string, column: string, weight: string | u
     } else weights.push(1);
   }
   if (values.length === 0) throw new TradeError('the file has a header but no rows of samples');
-  if (weights.reduce((a, b) => a + b, 0) === 0) throw new TradeError(`every weight in column ${table.header[wi]} is zero`);
+  if (weights.every((w) => w === 0)) throw new TradeError(`every weight in column ${table.header[wi]} is zero`);
   return { values, weights, weighted: wi >= 0, delimiter: table.delimiter, columns: table.header };
 }
