@@ -5,7 +5,7 @@
 // warm-up. A second row times the whole statement through the engine.
 import { performance } from 'node:perf_hooks';
 import { bool, createRegistry, list, num, si, str, type Args, type CallContext, type Value } from '../dist/server/core/index.js';
-import { renderSheet } from '../dist/server/sheet.js';
+import { renderSheet } from '../dist/server/index.js';
 import { summarise, type Summary } from './stats.js';
 
 const CALLS = Number(process.env.WAKESHEET_BENCH_CALLS ?? 2000);

@@ -6,13 +6,14 @@ import { fileURLToPath } from 'node:url';
 import { benchColdStart, printColdStart } from './cold-start.js';
 import { benchConvergence, printConvergence } from './convergence.js';
 import { benchDomain, printDomain } from './domain.js';
+import { benchRerun, printRerun } from './rerun.js';
 import { benchLive, printLive } from './live.js';
 import { benchMemory, printMemory } from './memory.js';
 import { benchFairness, printFairness } from './fairness.js';
 
 const out = path.join(path.dirname(fileURLToPath(import.meta.url)), 'out');
 // WAKESHEET_BENCH_ONLY picks some of them, as a comma list: live (or demo, or
-// large, its two sheets), start, domain, convergence, memory, fairness.
+// large, its two sheets), start, domain, convergence, rerun, memory, fairness.
 const only = process.env.WAKESHEET_BENCH_ONLY?.split(',');
 const runs = (name: string, ...aliases: string[]) => !only || only.includes(name) || aliases.some((a) => only.includes(a));
 await mkdir(out, { recursive: true });
@@ -46,4 +47,9 @@ if (runs('convergence')) {
   const convergence = await benchConvergence();
   printConvergence(convergence);
   await save('convergence', convergence);
+}
+if (runs('rerun')) {
+  const rerun = await benchRerun();
+  printRerun(rerun);
+  await save('rerun', rerun);
 }
