@@ -6,7 +6,7 @@
 import { SheetError, type Diagnostic } from '../diagnostics.js';
 import { bool, describeValue, figure, linePlot, numberText, str, table, type FigureValue, type Quantity, type TableValue, type Value } from '../core/index.js';
 import type { Expr, Statement } from '../parse/ast.js';
-import { unitLabel } from '../units/labels.js';
+import { engineeringPrefix, unitLabel } from '../units/labels.js';
 import { evaluate } from './interpreter.js';
 import type { Rerun, RerunRow } from './rerun.js';
 import type { Scope } from './scope.js';
@@ -79,7 +79,7 @@ export function evaluateSweep(expr: Expr, env: SweepEnv): TableValue {
   const remarks = [`Each row runs again only what lies downstream of ${inputs.map((i) => i.name).join(' and ')} (${rerun.downstream.length} of the sheet's statements); everything else keeps the sheet's own value.`];
   for (const [line, outcomes] of checkRows) {
     const words = checkWords(outcomes, labels);
-    const text = `the check on line ${line} (${env.checkLabel(line)}) ${words.text}`;
+    const text = `the check "${env.checkLabel(line)}" (line ${line}) ${words.text}`;
     (words.allHold ? remarks : warnings).push(text);
   }
   const columns = [...inputs.map((i) => i.name), ...outputs.map(outputLabel)];
@@ -91,7 +91,7 @@ function readInput(e: CallExpr, nameExpr: Expr, valuesExpr: Expr, env: SweepEnv)
   if (nameExpr.type !== 'name') throw new SheetError('bad-argument', `${e.callee}() sweeps a name defined on the sheet, such as U_inf, not an expression`, nameExpr.span);
   const from = env.usedFrom(nameExpr.name);
   if (from) {
-    throw new SheetError('bad-argument', `\`${nameExpr.name}\` comes from ${from}, and a sweep runs only this sheet again; define a name here from it (U = ${nameExpr.name}), use it downstream, and sweep that`, nameExpr.span);
+    throw new SheetError('bad-argument', `\`${nameExpr.name}\` comes from ${from}, and a sweep runs only this sheet again; define a name here from it (${nameExpr.name}_here = ${nameExpr.name}), use that downstream, and sweep it`, nameExpr.span);
   }
   if (!env.defines(nameExpr.name)) throw new SheetError('unknown-name', `${e.callee}() can only sweep a name this sheet defines; \`${nameExpr.name}\` is not one`, nameExpr.span);
   const v = evaluate(valuesExpr, env.scope);
@@ -183,25 +183,37 @@ function plots(columns: readonly string[], rows: readonly (readonly Value[])[], 
   if (!rows.every((r) => x(r).kind === 'quantity')) return out;
   for (let c = inputCount; c < columns.length; c++) {
     if (!rows.every((r) => r[c]!.kind === 'quantity')) continue;
+    const xAxis = axisUnit(rows.map((r) => x(r) as Quantity));
+    const yAxis = axisUnit(rows.map((r) => r[c] as Quantity));
     const groups = new Map<string, Array<readonly [number, number]>>();
     for (const r of rows) {
       const key = inputCount === 2 ? `${columns[1]} = ${valueWords(r[1]!)}` : columns[c]!;
       const list = groups.get(key) ?? [];
-      list.push([(x(r) as Quantity).si, (r[c] as Quantity).si]);
+      list.push([(x(r) as Quantity).si / xAxis.factor, (r[c] as Quantity).si / yAxis.factor]);
       groups.set(key, list);
     }
-    const first = rows[0]![c] as Quantity;
-    const xUnit = unitLabel((x(rows[0]!) as Quantity).dims);
-    const yUnit = unitLabel(first.dims);
     const svg = linePlot({
       title: `${columns[c]} against ${columns[0]}`,
-      x: { label: `${columns[0]}${xUnit ? ` (${xUnit}, SI)` : ''}` },
-      y: { label: `${columns[c]}${yUnit ? ` (${yUnit}, SI)` : ''}` },
+      x: { label: `${columns[0]}${xAxis.text ? ` (${xAxis.text})` : ''}` },
+      y: { label: `${columns[c]}${yAxis.text ? ` (${yAxis.text})` : ''}` },
       series: [...groups].map(([name, points]) => ({ name, points, dots: true })),
     });
     out.push(figure(svg, `${columns[c]} over the sweep`));
   }
   return out;
+}
+
+/**
+ * The unit an axis reads in: the one the sheet gave the values (km/h), else
+ * an engineering prefix that fits the largest (µm), else SI. Temperatures
+ * and other units with an offset stay in SI (kelvin).
+ */
+function axisUnit(values: readonly Quantity[]): { factor: number; text: string } {
+  const first = values[0]!;
+  if (first.unit && !first.unit.offset && values.every((v) => v.unit?.text === first.unit!.text)) return { factor: first.unit.factor, text: first.unit.text };
+  const label = unitLabel(first.dims);
+  const prefix = engineeringPrefix(label, Math.max(...values.map((v) => Math.abs(v.si))));
+  return prefix ? { factor: prefix.factor, text: prefix.prefix + label } : { factor: 1, text: label };
 }
 
 export type { Statement };

@@ -4,7 +4,7 @@
 import type { Quantity, Unit } from '../units/quantity.js';
 import { inUnit } from '../units/quantity.js';
 import { isDimensionless } from '../units/dims.js';
-import { PREFIXABLE, unitLabel } from '../units/labels.js';
+import { engineeringPrefix, PREFIXABLE, unitLabel } from '../units/labels.js';
 import { lookupUnit } from '../units/catalogue.js';
 
 export interface Shown {
@@ -14,19 +14,6 @@ export interface Shown {
   /** Unit as typed or chosen ("km/h", "µm", "degC", "%", ""). */
   unit: string;
 }
-
-const PREFIXES: Array<[string, number]> = [
-  ['G', 1e9],
-  ['M', 1e6],
-  ['k', 1e3],
-  ['', 1],
-  ['m', 1e-3],
-  ['µ', 1e-6],
-  ['n', 1e-9],
-];
-// Prefixes that read naturally on each unit, as engineers write them: no Mm
-// or ks, and no mPa (a wall shear stress is written 0.41 Pa).
-const ALLOWED: Record<string, string> = { m: 'kmµn', s: 'mµn', Pa: 'GMk', N: 'Mkm', W: 'GMkm', J: 'GMkm', 'N m': 'km' };
 
 /** The units a sheet asked for (front matter `units:`), by the SI unit of their dimension. */
 let preferred: ReadonlyMap<string, Unit> = new Map();
@@ -83,16 +70,8 @@ export function showQuantity(q: Quantity, sig: number): Shown {
   const label = unitLabel(q.dims);
   const wanted = q.unit ? undefined : preferred.get(label);
   if (wanted && !q.absolute) return { ...formatNumber(q.si / wanted.factor, sig), unit: wanted.text };
-  const allowed = ALLOWED[label];
-  if (PREFIXABLE.has(label) && allowed !== undefined && q.si !== 0) {
-    const mag = Math.abs(roundSig(q.si, sig));
-    for (const [p, f] of PREFIXES) {
-      if (p !== '' && !allowed.includes(p)) continue;
-      if (mag >= f && mag < f * 1000) {
-        return { ...formatNumber(q.si / f, sig), unit: p + label };
-      }
-    }
-  }
+  const prefix = q.si !== 0 ? engineeringPrefix(label, Math.abs(roundSig(q.si, sig))) : null;
+  if (prefix) return { ...formatNumber(q.si / prefix.factor, sig), unit: prefix.prefix + label };
   return { ...formatNumber(q.si, sig), unit: label };
 }
 

@@ -38,3 +38,27 @@ export function unitLabel(d: Dims): string {
 
 /** Units that take an engineering prefix when shown (23 µm, 4.2 kPa). */
 export const PREFIXABLE = new Set(['m', 's', 'Pa', 'N', 'W', 'J', 'N m']);
+
+const PREFIXES: Array<[string, number]> = [
+  ['G', 1e9],
+  ['M', 1e6],
+  ['k', 1e3],
+  ['', 1],
+  ['m', 1e-3],
+  ['µ', 1e-6],
+  ['n', 1e-9],
+];
+// Prefixes that read naturally on each unit, as engineers write them: no Mm
+// or ks, and no mPa (a wall shear stress is written 0.41 Pa).
+const ALLOWED: Record<string, string> = { m: 'kmµn', s: 'mµn', Pa: 'GMk', N: 'Mkm', W: 'GMkm', J: 'GMkm', 'N m': 'km' };
+
+/** The prefix that puts a magnitude of a PREFIXABLE unit between 1 and 1000 (µ for 2.3e-5 m), or null. */
+export function engineeringPrefix(label: string, magnitude: number): { prefix: string; factor: number } | null {
+  const allowed = ALLOWED[label];
+  if (!PREFIXABLE.has(label) || allowed === undefined) return null;
+  for (const [prefix, factor] of PREFIXES) {
+    if (prefix !== '' && !allowed.includes(prefix)) continue;
+    if (magnitude >= factor && magnitude < factor * 1000) return { prefix, factor };
+  }
+  return null;
+}

@@ -78,6 +78,6 @@ describe('inputs set for one run', () => {
       const check = alone.checks[0]!.passed;
       expect(check).toBe(i < 2); // the sweep says it fails at 40 m/s only
     }
-    expect(swept.values.plan!.warnings).toEqual(['the check on line 7 (tall enough to mesh) holds from U = 10 m/s to U = 25 m/s; fails at U = 40 m/s']);
+    expect(swept.values.plan!.warnings).toEqual(['the check "tall enough to mesh" (line 7) holds from U = 10 m/s to U = 25 m/s; fails at U = 40 m/s']);
   });
 });

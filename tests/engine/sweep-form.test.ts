@@ -36,9 +36,19 @@ describe('sweep', () => {
     expect(noCheck.values.plan!.remarks!.join(' ')).toContain("(1 of the sheet's statements)");
   });
 
+  it('plots each output in the units its column reads in, not bare SI', async () => {
+    const r = await renderSheet('```basis\n' + [...base('30 km/h'), 'plan = sweep(U, [20, 60, 100] km/h, wall.height, plot: true)'].join('\n') + '\n```\n');
+    expect(r.errors).toEqual([]);
+    const svg = r.html.slice(r.html.indexOf('wall.height against U'));
+    // The speeds as the sheet gave them, the heights with the prefix that puts them between 1 and 1000.
+    expect(svg).toContain('U (km/h)');
+    expect(svg).toMatch(/wall\.height \((µm|&#181;m|&#xb5;m)\)/);
+    expect(svg).not.toContain(', SI)');
+  });
+
   it('says for which rows a check downstream holds', async () => {
     const r = await sheet([...base('30 m/s'), 'plan = sweep(U, [10, 20, 30, 40] m/s, wall.height)']);
-    expect(r.values.plan!.warnings).toEqual(['the check on line 7 (tall enough to mesh) holds from U = 10 m/s to U = 30 m/s; fails at U = 40 m/s']);
+    expect(r.values.plan!.warnings).toEqual(['the check "tall enough to mesh" (line 7) holds from U = 10 m/s to U = 30 m/s; fails at U = 40 m/s']);
   });
 
   it('shows a row that fails with its error, and the other rows', async () => {

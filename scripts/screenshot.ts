@@ -1,0 +1,53 @@
+// Pictures of the live page, made again after any change: starts the server
+// on the bundled worksheets (or DIR), opens one sheet in Debian's Chromium and
+// writes a PNG (or, with --print, the A4 print-out as a PDF).
+//
+//   node --import tsx scripts/screenshot.ts [SHEET] [-o OUT] [--dir DIR] [--width N] [--height N] [--full] [--at TEXT] [--print]
+//
+// --at scrolls the first element that shows TEXT to the top of the window.
+//
+// The default is the README's picture: the near-wall plan at 1280 px, written
+// to docs/live-page.png.
+import path from 'node:path';
+import { mkdtemp, mkdir, rm } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { chromium } from 'playwright-core';
+import { startServer } from '../server/serve/index.js';
+
+const args = process.argv.slice(2);
+const flag = (name: string) => args.includes(name);
+const option = (name: string, fallback: string) => {
+  const i = args.indexOf(name);
+  return i >= 0 && args[i + 1] ? args[i + 1]! : fallback;
+};
+const valued = new Set(['-o', '--dir', '--width', '--height', '--at']);
+const sheet = args.find((a, i) => !a.startsWith('-') && !valued.has(args[i - 1] ?? '')) ?? 'van-near-wall.md';
+const dir = option('--dir', 'worksheets');
+const print = flag('--print');
+const out = path.resolve(option('-o', print ? 'docs/live-page.pdf' : 'docs/live-page.png'));
+const width = Number(option('--width', '1280'));
+const height = Number(option('--height', '900'));
+
+const server = await startServer({ dir, port: 0, host: '127.0.0.1', warn: () => {} });
+const profile = await mkdtemp(path.join(tmpdir(), 'wakesheet-shot-'));
+const context = await chromium.launchPersistentContext(profile, {
+  executablePath: process.env.WAKESHEET_CHROMIUM ?? '/usr/bin/chromium',
+  headless: true,
+  viewport: { width, height },
+  args: ['--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+});
+try {
+  const page = context.pages()[0] ?? (await context.newPage());
+  await page.goto(new URL('sheet/' + sheet.split(path.sep).map(encodeURIComponent).join('/'), server.url).href, { waitUntil: 'networkidle' });
+  await page.evaluate(() => document.fonts.ready);
+  const at = option('--at', '');
+  if (at) await page.getByText(at).first().evaluate((el) => el.scrollIntoView({ block: 'start' }));
+  await mkdir(path.dirname(out), { recursive: true });
+  if (print) await page.pdf({ path: out, format: 'A4', printBackground: true });
+  else await page.screenshot({ path: out, fullPage: flag('--full') });
+  console.log(`wrote ${path.relative(process.cwd(), out)}`);
+} finally {
+  await context.close();
+  await rm(profile, { recursive: true, force: true });
+  await server.close();
+}
