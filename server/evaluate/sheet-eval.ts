@@ -163,8 +163,9 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       return;
     }
     const inputs: unknown[] = r.uses.map((n) => values.get(n) ?? CONSTANTS.get(n)!);
-    // A sweep also depends on every statement it runs again: the sheet's text stands for them.
-    if (isSweep(r.stmt.expr)) inputs.push((sheetText ??= statements.map((x) => x.source).join('\n')));
+    // A sweep also depends on every statement it runs again: the sheet's text stands for them,
+    // with their lines, since what it says of a check names the check's line.
+    if (isSweep(r.stmt.expr)) inputs.push((sheetText ??= statements.map((x) => `${x.line}:${x.source}`).join('\n')));
     const key = memoOf(r.stmt).key;
     used.add(key);
     const hit = cache.entries.get(key);

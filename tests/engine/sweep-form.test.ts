@@ -2,7 +2,7 @@
 // downstream of it; a table of outputs labelled by the input; each row as a
 // separate run would give it; a failing row shows its error; checks per row.
 import { describe, expect, it } from 'vitest';
-import { renderSheet } from '../../server/pipeline/index.js';
+import { renderSheet, SheetPipeline } from '../../server/pipeline/index.js';
 
 const base = (u: string) => [
   `U = ${u}`,
@@ -49,6 +49,14 @@ describe('sweep', () => {
   it('says for which rows a check downstream holds', async () => {
     const r = await sheet([...base('30 m/s'), 'plan = sweep(U, [10, 20, 30, 40] m/s, wall.height)']);
     expect(r.values.plan!.warnings).toEqual(['the check "tall enough to mesh" (line 7) holds from U = 10 m/s to U = 30 m/s; fails at U = 40 m/s']);
+  });
+
+  it('names a check by the line it is on now, after lines above it moved, with the sweep kept in the cache', () => {
+    const pipeline = new SheetPipeline();
+    const lines = [...base('30 m/s'), 'plan = sweep(U, [10, 40] m/s, wall.height)'];
+    const at = (text: string) => pipeline.run(text).values.plan!.warnings!.join(' ');
+    expect(at('```basis\n' + lines.join('\n') + '\n```\n')).toContain('(line 7)');
+    expect(at('A line of prose above.\n\n```basis\n' + lines.join('\n') + '\n```\n')).toContain('(line 9)');
   });
 
   it('shows a row that fails with its error, and the other rows', async () => {
