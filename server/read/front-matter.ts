@@ -69,6 +69,14 @@ function readYaml(source: string): Omit<FrontMatter, 'body'> {
     return { meta };
   } catch (e) {
     const linePos = (e as { linePos?: Array<{ line: number }> }).linePos?.[0]?.line ?? 1;
-    return { meta: {}, problem: { line: linePos + 1, message: `the front matter is not valid YAML: ${(e as Error).message.split('\n')[0]}` } };
+    // The usual slip: a title with a colon in it, which YAML reads as a second key.
+    const bad = /^([A-Za-z_][\w-]*):[ \t]+([^"'\s].*?:[ \t].*)$/.exec(source.split(/\r?\n/)[linePos - 1] ?? '');
+    const hint = bad ? `; a value with ": " in it needs quotes: ${bad[1]}: "${bad[2]!.trim().replace(/"/g, '\\"')}"` : '';
+    return { meta: {}, problem: { line: linePos + 1, message: `the front matter is not valid YAML: ${yamlReason(e as Error)}${hint}` } };
   }
+}
+
+/** yaml's first line of a message, without its place (counted from the front matter, not the file: ours is given instead). */
+function yamlReason(e: Error): string {
+  return e.message.split('\n')[0]!.replace(/ at line \d+, column \d+:?$/, '');
 }

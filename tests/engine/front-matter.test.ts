@@ -59,4 +59,12 @@ describe('plain front matter', () => {
     const bad = splitFrontMatter('---\ntitle: [unclosed\n---\nbody');
     expect(bad.problem?.message).toMatch(/^the front matter is not valid YAML/);
   });
+
+  it('says how to quote a title with a colon in it, at the line of the file', () => {
+    const bad = splitFrontMatter('---\nproject: Quay study\ntitle: Roof pod: near-wall plan\n---\nbody');
+    expect(bad.problem?.line).toBe(3);
+    expect(bad.problem?.message).toContain('a value with ": " in it needs quotes: title: "Roof pod: near-wall plan"');
+    // yaml's own place counts from the front matter; only the file's is given.
+    expect(bad.problem?.message).not.toMatch(/at line \d/);
+  });
 });
