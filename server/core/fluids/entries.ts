@@ -201,7 +201,7 @@ const FLUID_PARAM = { name: 'fluid', type: 'fluid', doc: 'a fluid record (air(),
 const reynolds: TradeFunction = {
   name: 'reynolds',
   params: [U_PARAM, L_PARAM, { ...FLUID_PARAM, optional: true }, { name: 'nu', type: 'quantity', unit: 'm^2/s', optional: true, doc: 'kinematic viscosity, instead of a fluid' }],
-  returns: { symbol: '\\mathrm{Re}', unit: '1', doc: 'Reynolds number on L' },
+  returns: { symbol: '\\mathrm{Re}', unit: '1', doc: 'the Reynolds number on L' },
   doc: 'Reynolds number Re = U L / nu',
   source: 'definition (Reynolds 1883)',
   example: 'reynolds(30 m/s, 4 m, air(T: 20 degC))',
@@ -213,7 +213,7 @@ const reynolds: TradeFunction = {
 const mach: TradeFunction = {
   name: 'mach',
   params: [U_PARAM, FLUID_PARAM],
-  returns: { symbol: '\\mathrm{Ma}', unit: '1', doc: 'Mach number' },
+  returns: { symbol: '\\mathrm{Ma}', unit: '1', doc: 'the Mach number' },
   doc: 'Mach number Ma = U / a',
   source: 'definition; compressibility flag above Ma 0.3 is common practice',
   example: 'mach(100 m/s, air(T: 15 degC))',
@@ -227,7 +227,7 @@ const mach: TradeFunction = {
 const dynamic_pressure: TradeFunction = {
   name: 'dynamic_pressure',
   params: [U_PARAM, FLUID_PARAM],
-  returns: { symbol: 'q', unit: 'Pa', doc: 'dynamic pressure' },
+  returns: { symbol: 'q', unit: 'Pa', doc: 'the dynamic pressure' },
   doc: 'dynamic pressure q = rho U\u00b2 / 2',
   source: 'definition (Bernoulli)',
   example: 'dynamic_pressure(30 m/s, air(T: 20 degC))',

@@ -8,8 +8,8 @@ import { TradeError } from '../shared/trade-error.js';
 import { num, type Value } from '../shared/values.js';
 
 const X: ParamSpec[] = [{ name: 'x', type: 'quantity', unit: ANY_DIMENSION, doc: 'argument' }];
-const PLAIN: ResultSpec = { symbol: '', unit: '1', doc: 'a plain number' };
-const LIKE_ARGUMENTS: ResultSpec = { symbol: '', unit: ANY_DIMENSION, doc: 'in the unit of the argument' };
+const PLAIN: ResultSpec = { symbol: '', unit: '1', doc: 'the result' };
+const LIKE_ARGUMENTS: ResultSpec = { symbol: '', unit: ANY_DIMENSION, doc: 'the result, in the unit of the arguments' };
 
 function q(args: Args, name = 'x'): Quantity {
   const v = args[name];
@@ -76,7 +76,7 @@ export const mathsEntries: TradeFunction[] = [
   {
     name: 'sqrt',
     params: X,
-    returns: { symbol: '', unit: ANY_DIMENSION, doc: 'in the half power of the unit of x' },
+    returns: { symbol: '', unit: ANY_DIMENSION, doc: 'the root, in the half power of the unit of x' },
     doc: 'square root (units take the half power)',
     source: 'definition',
     example: 'sqrt(4 m^2)',
@@ -114,7 +114,7 @@ export const mathsEntries: TradeFunction[] = [
       { name: 'stop', type: 'quantity', unit: ANY_DIMENSION, doc: 'last value (same unit as start)' },
       { name: 'count', type: 'quantity', unit: '1', default: '11', doc: 'number of values, 2 to 100000' },
     ],
-    returns: { symbol: '', unit: 'list', doc: 'count values in the unit of start' },
+    returns: { symbol: '', unit: 'list', doc: 'a list of count values in the unit of start' },
     doc: 'evenly spaced values from start to stop, for sweeps',
     source: 'definition',
     example: 'linspace(10 m/s, 40 m/s, 4)',
