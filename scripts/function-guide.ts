@@ -11,10 +11,10 @@ import { markdownText, symbolHtml } from './symbol-html.js';
 
 export const GUIDE_PATH = 'worksheets/guide/functions.md';
 
-/** A declared dimension in words: "m/s", "plain number", "any unit". */
+/** A declared dimension for a unit column: "m/s", "1" (a plain number), "any unit". */
 function dimensionText(unit: string): string {
   if (unit === ANY_DIMENSION) return 'any unit';
-  if (unit === '1') return 'plain number';
+  if (unit === '1') return '1';
   if (unit === 'text' || unit === 'list' || unit === 'table') return unit;
   return unitPlain(unit);
 }
@@ -90,14 +90,9 @@ function resultLines(fn: TradeFunction): string[] {
   return ['Returns a record:', '', ...table(['field', 'symbol', 'unit', 'meaning'], fields.map((f) => [code(f.name), symbolCell(f.symbol), dimensionText(f.unit), markdownText(f.doc)]))];
 }
 
-/** The heading of a function: its name and its parameters in order, `air(T, p, RH)`. */
-function signature(fn: TradeFunction): string {
-  return markdownText(`${fn.name}(${fn.params.map((p) => p.name).join(', ')})`);
-}
-
 function functionSection(fn: TradeFunction): string[] {
   return [
-    `### ${signature(fn)}`,
+    `### ${markdownText(fn.name)}`,
     '',
     `${markdownText(capitalised(fn.doc))}.`,
     '',
@@ -116,7 +111,7 @@ function functionSection(fn: TradeFunction): string[] {
 /** A sentence from a declaration's phrase: a leading word is capitalised, a leading symbol (e, k, y+) is not. */
 function capitalised(s: string): string {
   const text = s.replace(/\.$/, '');
-  return /^[a-z]{2,}\b/.test(text) ? text.charAt(0).toUpperCase() + text.slice(1) : text;
+  return /^(?:[a-z]{2,}|a)\b(?![+_(])/.test(text) ? text.charAt(0).toUpperCase() + text.slice(1) : text;
 }
 
 function familySection(family: TradeFamily): string[] {
@@ -155,7 +150,8 @@ export function functionGuide(families: readonly TradeFamily[] = tradeFamilies):
     '',
     'Arguments are given in order or by name (`air(T: 20 degC)`); a parameter',
     'with a default, or marked optional, may be left out. A unit column names the',
-    'dimension a quantity must have; any unit of that dimension is accepted.',
+    'dimension a quantity must have, and any unit of that dimension is accepted;',
+    'a unit of 1 is a plain number (a ratio, a count, or a percentage such as `5 %`).',
     '',
     '## Contents',
     '',

@@ -24,7 +24,7 @@ describe('the function guide', () => {
     const headings = committed.split('\n').filter((l) => l.startsWith('### '));
     const examples = basisLines(committed);
     for (const fn of createRegistry().list()) {
-      expect(headings.filter((h) => h.startsWith(`### ${markdownText(fn.name)}(`)), fn.name).toHaveLength(1);
+      expect(headings.filter((h) => h === `### ${markdownText(fn.name)}`), fn.name).toHaveLength(1);
       expect(examples, fn.name).toContain(fn.example);
     }
     expect(examples).toHaveLength(createRegistry().list().length);
