@@ -91,7 +91,9 @@ export function buildReport(input: ReportInput): SheetReport {
     checksNotRun,
     errors: errors.length,
   };
-  const caution = [...evaluation.values.values()].some(needsCaution) || input.meta.caution === 'true';
+  // A bare expression's result counts as much as a named one: `abl(...)` alone on a line still gives wind loads.
+  const shown = [...evaluation.values.values(), ...evaluation.results.flatMap((r) => (r.value ? [r.value] : []))];
+  const caution = shown.some(needsCaution) || input.meta.caution === 'true';
   return {
     title: input.title,
     meta: input.meta,

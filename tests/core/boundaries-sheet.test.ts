@@ -18,6 +18,13 @@ describe('boundary family on a sheet', () => {
     expect(plain.caution).toBe(false);
   });
 
+  it('brings the caution for a wind record that is only shown, not named', async () => {
+    const bare = await sheet(['terrain("III")']);
+    expect(bare.errors).toEqual([]);
+    expect(bare.caution).toBe(true);
+    expect(bare.html).toMatch(/class="ws-caution"/);
+  });
+
   it('shows a table field at the full width of the record, under its name and note', async () => {
     const r = await sheet(['bc = boundaries([velocity_inlet("inlet", 30 m/s), pressure_outlet("outlet"), wall("body")])']);
     expect(r.html).toMatch(/<div class="ws-subtable"><div class="ws-subtable-head"><span class="ws-field">(?:<span class="ws-sym">.*?<\/span>)?<code class="ws-field-name">table<\/code><\/span> <span class="ws-note">each patch, its condition and its values<\/span><\/div><div class="ws-table-wrap"><table class="ws-table" data-name="bc.table">/);

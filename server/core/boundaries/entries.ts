@@ -94,6 +94,7 @@ const inlet_turbulence: TradeFunction = {
 const duct_length_scale: TradeFunction = {
   name: 'duct_length_scale',
   params: [{ name: 'D_h', type: 'quantity', unit: 'm', doc: 'hydraulic diameter of the duct or pipe feeding the inlet' }],
+  returns: { symbol: '\\ell', unit: 'm', doc: 'the turbulence length scale' },
   doc: 'turbulence length scale of fully developed duct flow, ℓ = 0.07 D_h',
   source: 'ℓ = 0.07 D_h ("7 % of the hydraulic diameter"): CFD-Wiki, "Turbulence length scale"',
   example: 'duct_length_scale(0.5 m)',
@@ -514,6 +515,7 @@ const time_step: TradeFunction = {
     { name: 'dx', type: 'quantity', unit: 'm', doc: 'the smallest cell size along the flow' },
     { name: 'courant', type: 'quantity', unit: '1', default: '1', doc: 'target Courant number C = U Δt / Δx' },
   ],
+  returns: { symbol: '\\Delta t', unit: 's', doc: 'the time step' },
   doc: 'time step for a target Courant number, Δt = C Δx / U',
   source: 'Courant number C = U Δt/Δx: Courant, Friedrichs & Lewy (1928), Math. Ann. 100, 32–74',
   example: 'time_step(40 m/s, 5 mm, courant: 1)',
@@ -531,6 +533,7 @@ const flow_through: TradeFunction = {
     { name: 'length', type: 'quantity', unit: 'm', doc: 'length of the domain (or of the body) along the flow' },
     { name: 'U', type: 'quantity', unit: 'm/s', doc: 'free-stream speed' },
   ],
+  returns: { symbol: 't_{\\text{ft}}', unit: 's', doc: 'the flow-through time' },
   doc: 'time for the flow to pass a length once, L / U',
   source: 'flow-through time L/U (definition)',
   example: 'flow_through(60 m, 30 m/s)',

@@ -76,7 +76,7 @@ const residuals: TradeFunction = {
   doc: 'judges a residual history: per field the drop in orders of magnitude, the convergence factor, the iterations remaining and a verdict; a log-scale plot',
   source:
     'drop = log10(initial/final); asymptotic convergence factor from a least-squares fit of log10 residual over a trailing window (linear iteration error ∝ ρ^n: Ferziger & Perić, Computational Methods for Fluid Dynamics, 2002, ch. 5, from memory); verdict thresholds stated on the sheet',
-  example: 'residuals("data/towed-body-residuals.csv", target_drop: 4, window: 200)',
+  example: 'residuals("../data/towed-body-residuals.csv", target_drop: 4, window: 200)',
   compute(args, ctx) {
     const path = stringArg(args, 'path');
     const opts: ResidualOptions = {
@@ -173,7 +173,7 @@ const monitor: TradeFunction = {
   fields: MONITOR_FIELDS,
   doc: 'a monitored quantity over the trailing window: mean, standard deviation, drift between the halves, and whether it has settled; a plot',
   source: 'drift between the means of the two halves of the trailing window, relative to the mean, against a tolerance: common practice for judging that a force coefficient has settled',
-  example: 'monitor("data/towed-body-forces.csv", column: "Cd", window: 500, tol: 0.5 %)',
+  example: 'monitor("../data/towed-body-forces.csv", column: "Cd", window: 500, tol: 0.5 %)',
   compute(args, ctx) {
     const path = stringArg(args, 'path');
     const window = positive('window', siArg(args, 'window'));

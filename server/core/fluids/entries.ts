@@ -2,9 +2,10 @@
 // lives in the neighbouring files as functions of SI numbers; here arguments
 // are read, results are given units, and each record says how it was made.
 import { bareNumber, fluidArg, optionalSi, passThrough, siArg, type FluidProps } from '../shared/args.js';
-import type { Args, TradeFunction } from '../shared/registry.js';
+import { fieldRecord } from '../shared/records.js';
+import type { Args, FieldSpec, TradeFunction } from '../shared/registry.js';
 import { TradeError } from '../shared/trade-error.js';
-import { num, record, si, str, type Value } from '../shared/values.js';
+import { num, si, str, type Value } from '../shared/values.js';
 import { airProperties, SUTHERLAND_RANGE_K } from './air.js';
 import { atmosphereAt, GEOMETRIC_TOP, GEOPOTENTIAL_TOP } from './atmosphere.js';
 import { compressibilityWarnings } from '../shared/flow.js';
@@ -15,14 +16,32 @@ import { celsiusText, exactText, numberText } from '../shared/words.js';
 
 const FLUID = 'fluid';
 
-function rhoField(rho: number): [string, Value, string] {
-  return ['rho', si(rho, 'kg/m^3'), 'density'];
-}
-function muField(mu: number): [string, Value, string] {
-  return ['mu', si(mu, 'Pa s'), 'dynamic viscosity'];
-}
-function nuField(nu: number): [string, Value, string] {
-  return ['nu', si(nu, 'm^2/s'), 'kinematic viscosity'];
+// The fields a fluid record may have, declared once; each entry lists its own in the order shown.
+const RHO: FieldSpec = { name: 'rho', symbol: '\\rho', unit: 'kg/m^3', doc: 'density' };
+const MU: FieldSpec = { name: 'mu', symbol: '\\mu', unit: 'Pa s', doc: 'dynamic viscosity' };
+const NU: FieldSpec = { name: 'nu', symbol: '\\nu', unit: 'm^2/s', doc: 'kinematic viscosity' };
+const SOUND: FieldSpec = { name: 'a', symbol: 'a', unit: 'm/s', doc: 'speed of sound' };
+const TEMPERATURE: FieldSpec = { name: 'T', symbol: 'T', unit: 'K', doc: 'temperature' };
+const PRESSURE: FieldSpec = { name: 'p', symbol: 'p', unit: 'Pa', doc: 'pressure' };
+
+const AIR_FIELDS: readonly FieldSpec[] = [RHO, MU, NU, SOUND, TEMPERATURE, PRESSURE];
+const ATMOSPHERE_FIELDS: readonly FieldSpec[] = [
+  TEMPERATURE,
+  PRESSURE,
+  RHO,
+  MU,
+  NU,
+  SOUND,
+  { name: 'H', symbol: 'H', unit: 'm', doc: 'geopotential altitude' },
+  { name: 'Z', symbol: 'Z', unit: 'm', doc: 'geometric altitude' },
+];
+const WATER_FIELDS: readonly FieldSpec[] = [RHO, MU, NU, TEMPERATURE];
+const SEAWATER_FIELDS: readonly FieldSpec[] = [RHO, MU, NU, TEMPERATURE, { name: 'S', symbol: 'S', unit: '1', doc: 'salinity' }];
+const FLUID_FIELDS: readonly FieldSpec[] = [RHO, MU, NU, SOUND];
+
+/** Density, viscosities and (where known) the speed of sound, as a fluid record's values. */
+function properties(rho: number, mu: number, nu: number, a?: number): Record<string, Value | undefined> {
+  return { rho: si(rho, 'kg/m^3'), mu: si(mu, 'Pa s'), nu: si(nu, 'm^2/s'), a: a === undefined ? undefined : si(a, 'm/s') };
 }
 
 const air: TradeFunction = {
@@ -32,6 +51,7 @@ const air: TradeFunction = {
     { name: 'p', type: 'quantity', unit: 'Pa', default: '101325 Pa', doc: 'absolute pressure' },
     { name: 'RH', type: 'quantity', unit: '1', default: '0 %', doc: 'relative humidity' },
   ],
+  fields: AIR_FIELDS,
   doc: 'air as an ideal gas: density, viscosity and speed of sound (humid air by partial pressures)',
   source:
     'Ideal gas with R = R*/M0 = 287.05 J/(kg K) and Sutherland viscosity (beta = 1.458e-6 kg/(m s K^0.5), S = 110.4 K), ' +
@@ -57,17 +77,7 @@ const air: TradeFunction = {
           'and the effect of the vapour on viscosity and on the speed of sound (both taken as for dry air).',
       );
     }
-    return record(
-      [
-        rhoField(air.rho),
-        muField(air.mu),
-        nuField(air.nu),
-        ['a', si(air.a, 'm/s'), 'speed of sound'],
-        ['T', passThrough(args, 'T'), 'temperature'],
-        ['p', passThrough(args, 'p'), 'pressure'],
-      ],
-      { warnings, remarks, tag: FLUID },
-    );
+    return fieldRecord(AIR_FIELDS, { ...properties(air.rho, air.mu, air.nu, air.a), T: passThrough(args, 'T'), p: passThrough(args, 'p') }, { warnings, remarks, tag: FLUID });
   },
 };
 
@@ -77,6 +87,7 @@ const atmosphere: TradeFunction = {
     { name: 'geopotential', type: 'quantity', unit: 'm', optional: true, doc: `geopotential altitude H, 0 to ${GEOPOTENTIAL_TOP / 1000} km (what a bare first argument is)` },
     { name: 'geometric', type: 'quantity', unit: 'm', optional: true, doc: `geometric altitude Z above sea level, 0 to ${GEOMETRIC_TOP / 1000} km, as handbook tables and aircraft data give it` },
   ],
+  fields: ATMOSPHERE_FIELDS,
   doc: 'the International Standard Atmosphere from 0 to 20 km geopotential, at a geopotential or a geometric altitude',
   source:
     "ISO 2533:1975 International Standard Atmosphere (identical to the U.S. Standard Atmosphere 1976 up to 20 km); H = r0 Z/(r0 + Z), r0 = 6 356 766 m (USSA-1976); viscosity by Sutherland's law with its constants",
@@ -90,17 +101,9 @@ const atmosphere: TradeFunction = {
     const s = atmosphereAt(H === undefined ? { geometric: Z! } : { geopotential: H });
     const m = (x: number) => `${numberText(x, { digits: 6 })} m`;
     const given = H === undefined ? `geometric altitude Z = ${m(s.Z)} (geopotential H = ${m(s.H)})` : `geopotential altitude H = ${m(s.H)} (geometric Z = ${m(s.Z)})`;
-    return record(
-      [
-        ['T', si(s.T, 'K'), 'temperature'],
-        ['p', si(s.p, 'Pa'), 'pressure'],
-        rhoField(s.rho),
-        muField(s.mu),
-        nuField(s.nu),
-        ['a', si(s.a, 'm/s'), 'speed of sound'],
-        ['H', si(s.H, 'm'), 'geopotential altitude'],
-        ['Z', si(s.Z, 'm'), 'geometric altitude'],
-      ],
+    return fieldRecord(
+      ATMOSPHERE_FIELDS,
+      { T: si(s.T, 'K'), p: si(s.p, 'Pa'), ...properties(s.rho, s.mu, s.nu, s.a), H: si(s.H, 'm'), Z: si(s.Z, 'm') },
       { remarks: [`International Standard Atmosphere (ISO 2533:1975), dry air, at ${given}.`], tag: FLUID },
     );
   },
@@ -112,12 +115,13 @@ const water: TradeFunction = {
     { name: 'T', type: 'quantity', unit: 'K', doc: 'temperature, 0 to 100 \u00b0C' },
     { name: 'p', type: 'quantity', unit: 'Pa', default: '101325 Pa', doc: 'absolute pressure' },
   ],
+  fields: WATER_FIELDS,
   doc: 'liquid fresh water from 0 to 100 \u00b0C: density and viscosity',
   source: 'Density by IAPWS-IF97 region 1 (IAPWS R7-97(2012)); viscosity by IAPWS R12-08 (2008), without the critical enhancement',
   example: 'water(15 degC)',
   compute(args) {
     const w = waterProperties(siArg(args, 'T', 'K'), siArg(args, 'p', 'Pa'));
-    return record([rhoField(w.rho), muField(w.mu), nuField(w.nu), ['T', passThrough(args, 'T'), 'temperature']], {
+    return fieldRecord(WATER_FIELDS, { ...properties(w.rho, w.mu, w.nu), T: passThrough(args, 'T') }, {
       remarks: ['Pure liquid water: density by IAPWS-IF97 (region 1), viscosity by the IAPWS 2008 formulation (R12-08). Dissolved air and impurities are neglected.'],
       tag: FLUID,
     });
@@ -130,6 +134,7 @@ const seawater: TradeFunction = {
     { name: 'T', type: 'quantity', unit: 'K', doc: 'temperature, 0 to 100 \u00b0C' },
     { name: 'S', type: 'quantity', unit: '1', default: '35 g/kg', doc: 'salinity (mass of salt per mass of seawater)' },
   ],
+  fields: SEAWATER_FIELDS,
   doc: 'seawater at atmospheric pressure: density and viscosity',
   source: 'Sharqawy, Lienhard and Zubair (2010), Thermophysical properties of seawater, Desalination and Water Treatment 16, 354-380: density Eq. 8, viscosity Eqs. 22-23',
   example: 'seawater(10 degC, S: 35 g/kg)',
@@ -139,14 +144,9 @@ const seawater: TradeFunction = {
       throw new TradeError(`S = ${exactText(S)} has no unit, so it reads as ${exactText(S * 1000)} g/kg; write salinity with its unit, e.g. S: ${exactText(S)} g/kg`);
     }
     const s = seawaterProperties(siArg(args, 'T', 'K'), S);
-    return record(
-      [
-        rhoField(s.rho),
-        muField(s.mu),
-        nuField(s.nu),
-        ['T', passThrough(args, 'T'), 'temperature'],
-        ['S', passThrough(args, 'S'), 'salinity'],
-      ],
+    return fieldRecord(
+      SEAWATER_FIELDS,
+      { ...properties(s.rho, s.mu, s.nu), T: passThrough(args, 'T'), S: passThrough(args, 'S') },
       {
         remarks: ['Seawater at atmospheric pressure by the correlations of Sharqawy, Lienhard and Zubair (2010); stated accuracy about 0.1 % in density and 1.5 % in viscosity.'],
         tag: FLUID,
@@ -162,6 +162,7 @@ const fluid: TradeFunction = {
     { name: 'mu', type: 'quantity', unit: 'Pa s', doc: 'dynamic viscosity' },
     { name: 'a', type: 'quantity', unit: 'm/s', optional: true, doc: 'speed of sound, for Mach numbers' },
   ],
+  fields: FLUID_FIELDS,
   doc: 'a fluid of your own from its density and viscosity (nu = mu/rho)',
   source: 'definition of kinematic viscosity, nu = mu/rho',
   example: 'fluid(rho: 870 kg/m^3, mu: 0.03 Pa s)',
@@ -172,9 +173,7 @@ const fluid: TradeFunction = {
     if (!(rho > 0)) throw new TradeError(`rho = ${exactText(rho)} kg/m^3: the density must be above zero`);
     if (!(mu > 0)) throw new TradeError(`mu = ${exactText(mu)} Pa s: the viscosity must be above zero`);
     if (a !== undefined && !(a > 0)) throw new TradeError(`a = ${exactText(a)} m/s: the speed of sound must be above zero`);
-    const entries = [rhoField(rho), muField(mu), nuField(mu / rho)];
-    if (a !== undefined) entries.push(['a', si(a, 'm/s'), 'speed of sound']);
-    return record(entries, { remarks: ['Fluid properties given by the sheet.'], tag: FLUID });
+    return fieldRecord(FLUID_FIELDS, properties(rho, mu, mu / rho, a), { remarks: ['Fluid properties given by the sheet.'], tag: FLUID });
   },
 };
 
@@ -202,6 +201,7 @@ const FLUID_PARAM = { name: 'fluid', type: 'fluid', doc: 'a fluid record (air(),
 const reynolds: TradeFunction = {
   name: 'reynolds',
   params: [U_PARAM, L_PARAM, { ...FLUID_PARAM, optional: true }, { name: 'nu', type: 'quantity', unit: 'm^2/s', optional: true, doc: 'kinematic viscosity, instead of a fluid' }],
+  returns: { symbol: '\\mathrm{Re}', unit: '1', doc: 'the Reynolds number on L' },
   doc: 'Reynolds number Re = U L / nu',
   source: 'definition (Reynolds 1883)',
   example: 'reynolds(30 m/s, 4 m, air(T: 20 degC))',
@@ -213,6 +213,7 @@ const reynolds: TradeFunction = {
 const mach: TradeFunction = {
   name: 'mach',
   params: [U_PARAM, FLUID_PARAM],
+  returns: { symbol: '\\mathrm{Ma}', unit: '1', doc: 'the Mach number' },
   doc: 'Mach number Ma = U / a',
   source: 'definition; compressibility flag above Ma 0.3 is common practice',
   example: 'mach(100 m/s, air(T: 15 degC))',
@@ -226,6 +227,7 @@ const mach: TradeFunction = {
 const dynamic_pressure: TradeFunction = {
   name: 'dynamic_pressure',
   params: [U_PARAM, FLUID_PARAM],
+  returns: { symbol: 'q', unit: 'Pa', doc: 'the dynamic pressure' },
   doc: 'dynamic pressure q = rho U\u00b2 / 2',
   source: 'definition (Bernoulli)',
   example: 'dynamic_pressure(30 m/s, air(T: 20 degC))',
@@ -234,9 +236,17 @@ const dynamic_pressure: TradeFunction = {
   },
 };
 
+const REGIME_FIELDS: readonly FieldSpec[] = [
+  { name: 'Re', symbol: '\\mathrm{Re}', unit: '1', doc: 'Reynolds number on L' },
+  { name: 'Ma', symbol: '\\mathrm{Ma}', unit: '1', doc: 'Mach number (when the fluid has a speed of sound)' },
+  { name: 'q', symbol: 'q', unit: 'Pa', doc: 'dynamic pressure' },
+  { name: 'regime', symbol: '', unit: 'text', doc: 'flat-plate boundary layer at L' },
+];
+
 const flow_regime: TradeFunction = {
   name: 'flow_regime',
   params: [U_PARAM, L_PARAM, FLUID_PARAM],
+  fields: REGIME_FIELDS,
   doc: 'Reynolds and Mach numbers, dynamic pressure, and the flat-plate regime in plain words',
   source: 'Re, Ma and q by definition; transition near Re_x = 5e5 on a smooth flat plate and compressibility above Ma 0.3 are common practice',
   example: 'flow_regime(30 m/s, 4 m, air(T: 20 degC))',
@@ -245,18 +255,17 @@ const flow_regime: TradeFunction = {
     const f = fluidArg(args);
     const Re = reynoldsNumber(U, siArg(args, 'L', 'm'), f.nu);
     const verdict = flatPlateRegime(Re);
-    const entries: Array<[string, Value, string?]> = [['Re', num(Re), 'Reynolds number on L']];
+    const values: Record<string, Value> = { Re: num(Re), q: si(dynamicPressure(U, f.rho), 'Pa'), regime: str(verdict.regime) };
     const warnings: string[] = [];
     const remarks = [`${verdict.explanation} (flat-plate transition near Re_x = 5\u00d710\u2075, common practice; roughness or a disturbed stream bring it earlier).`];
     if (f.a !== undefined) {
       const Ma = machNumber(U, f.a);
-      entries.push(['Ma', num(Ma), 'Mach number']);
+      values['Ma'] = num(Ma);
       warnings.push(...compressibilityWarnings(Ma));
     } else {
       remarks.push('The fluid record has no speed of sound a, so no Mach number is given (in water a is near 1500 m/s).');
     }
-    entries.push(['q', si(dynamicPressure(U, f.rho), 'Pa'), 'dynamic pressure'], ['regime', str(verdict.regime), 'flat-plate boundary layer at L']);
-    return record(entries, { warnings, remarks });
+    return fieldRecord(REGIME_FIELDS, values, { warnings, remarks }, { Ma: 'Mach number' });
   },
 };
 

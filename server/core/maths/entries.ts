@@ -3,11 +3,13 @@
 import { add, power, quantity, withSi, type Quantity } from '../../units/quantity.js';
 import { dimsEqual, isDimensionless } from '../../units/dims.js';
 import { unitLabel } from '../../units/labels.js';
-import { ANY_DIMENSION, type Args, type ParamSpec, type TradeFunction } from '../shared/registry.js';
+import { ANY_DIMENSION, type Args, type ParamSpec, type ResultSpec, type TradeFunction } from '../shared/registry.js';
 import { TradeError } from '../shared/trade-error.js';
 import { num, type Value } from '../shared/values.js';
 
 const X: ParamSpec[] = [{ name: 'x', type: 'quantity', unit: ANY_DIMENSION, doc: 'argument' }];
+const PLAIN: ResultSpec = { symbol: '', unit: '1', doc: 'the result' };
+const LIKE_ARGUMENTS: ResultSpec = { symbol: '', unit: ANY_DIMENSION, doc: 'the result, in the unit of the arguments' };
 
 function q(args: Args, name = 'x'): Quantity {
   const v = args[name];
@@ -25,6 +27,7 @@ function unary(name: string, doc: string, f: (x: number) => number, example: str
   return {
     name,
     params: X,
+    returns: PLAIN,
     doc,
     source: 'ECMAScript Math (IEEE 754 double precision)',
     example,
@@ -40,6 +43,7 @@ function extremum(name: 'min' | 'max'): TradeFunction {
   return {
     name,
     params: [{ name: 'values', type: 'any', doc: 'a list, or several arguments' }],
+    returns: LIKE_ARGUMENTS,
     doc: `the ${name === 'min' ? 'smallest' : 'largest'} of a list (units must agree)`,
     source: 'definition',
     example: `${name}([3, 1, 2] m)`,
@@ -72,6 +76,7 @@ export const mathsEntries: TradeFunction[] = [
   {
     name: 'sqrt',
     params: X,
+    returns: { symbol: '', unit: ANY_DIMENSION, doc: 'the root, in the half power of the unit of x' },
     doc: 'square root (units take the half power)',
     source: 'definition',
     example: 'sqrt(4 m^2)',
@@ -84,6 +89,7 @@ export const mathsEntries: TradeFunction[] = [
   {
     name: 'abs',
     params: X,
+    returns: LIKE_ARGUMENTS,
     doc: 'absolute value (keeps the unit)',
     source: 'definition',
     example: 'abs(-3 m/s)',
@@ -108,6 +114,7 @@ export const mathsEntries: TradeFunction[] = [
       { name: 'stop', type: 'quantity', unit: ANY_DIMENSION, doc: 'last value (same unit as start)' },
       { name: 'count', type: 'quantity', unit: '1', default: '11', doc: 'number of values, 2 to 100000' },
     ],
+    returns: { symbol: '', unit: 'list', doc: 'a list of count values in the unit of start' },
     doc: 'evenly spaced values from start to stop, for sweeps',
     source: 'definition',
     example: 'linspace(10 m/s, 40 m/s, 4)',
@@ -126,6 +133,7 @@ export const mathsEntries: TradeFunction[] = [
   {
     name: 'sum',
     params: [{ name: 'values', type: 'list', unit: ANY_DIMENSION, doc: 'a list of numbers or quantities of one unit' }],
+    returns: LIKE_ARGUMENTS,
     doc: 'the sum of a list',
     source: 'definition',
     example: 'sum([1, 2, 3] m)',
@@ -136,6 +144,7 @@ export const mathsEntries: TradeFunction[] = [
   {
     name: 'mean',
     params: [{ name: 'values', type: 'list', unit: ANY_DIMENSION, doc: 'a list of numbers or quantities of one unit' }],
+    returns: LIKE_ARGUMENTS,
     doc: 'the arithmetic mean of a list',
     source: 'definition',
     example: 'mean([1, 2, 3] m)',

@@ -1,6 +1,7 @@
 // The trade-function registry: each entry declares its parameters (with their
-// dimension and default), the fields it returns, a one-line doc, its published
-// source and an example call.
+// dimension and default), the fields or the one value it returns, a one-line
+// doc, its published source and an example call. The function guide is
+// generated from these declarations (scripts/function-guide.ts).
 import type { Value } from './values.js';
 
 export type ParamType = 'quantity' | 'string' | 'bool' | 'list' | 'record' | 'fluid' | 'any';
@@ -33,6 +34,15 @@ export interface FieldSpec {
   readonly doc: string;
 }
 
+/** What a trade function returns when it is one value rather than a record. */
+export interface ResultSpec {
+  /** Its mathematical symbol in LaTeX, or "" where it has none. */
+  readonly symbol: string;
+  /** Its dimension as unit text ("Pa", "1"), "any" when it follows the arguments, or "list". */
+  readonly unit: string;
+  readonly doc: string;
+}
+
 export interface CallContext {
   /** Text of a data file, by path relative to the project folder (checked by the reader). */
   readData(relativePath: string): string;
@@ -47,11 +57,16 @@ export interface TradeFunction {
   readonly params: readonly ParamSpec[];
   /** The fields of the returned record, when it returns one. */
   readonly fields?: readonly FieldSpec[];
+  /** The returned value, when it is one value: every entry declares either this or fields. */
+  readonly returns?: ResultSpec;
   /** One line: what it returns. */
   readonly doc: string;
   /** Method and published source, e.g. "Sutherland's law, U.S. Standard Atmosphere 1976, Eq. 51". */
   readonly source: string;
-  /** A call that evaluates, used by the registry test and the guide. */
+  /**
+   * A call that evaluates, used by the registry test and the function guide
+   * (worksheets/guide/functions.md): data paths are relative to that guide's folder.
+   */
   readonly example: string;
   compute(args: Args, ctx: CallContext): Value;
 }

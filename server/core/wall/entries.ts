@@ -4,9 +4,10 @@
 // numbers; here arguments are read and results are given units and words.
 import { choiceArg, fluidArg, optionalSi, siArg, siListArg, stringArg, type FluidProps } from '../shared/args.js';
 import { compressibilityWarnings } from '../shared/flow.js';
-import type { Args, TradeFunction } from '../shared/registry.js';
+import { fieldRecord } from '../shared/records.js';
+import type { Args, FieldSpec, TradeFunction } from '../shared/registry.js';
 import { TradeError } from '../shared/trade-error.js';
-import { figure, list, num, record, shown, si, str, type Value } from '../shared/values.js';
+import { figure, list, num, shown, si, str } from '../shared/values.js';
 import { lengthText, numberText } from '../shared/words.js';
 import { boundaryLayer } from './boundary-layer.js';
 import { bandOf, firstCell, PLACEMENTS, wallTreatment, yplusOf, type Placement } from './first-cell.js';
@@ -58,6 +59,7 @@ const skin_friction: TradeFunction = {
     METHOD_PARAM,
     { name: 'kind', type: 'string', default: '"local"', choices: SKIN_FRICTION_KINDS, doc: 'local coefficient c_f at Re_x, or the mean C_F over a plate of that Reynolds number (ittc1957 has only the mean)' },
   ],
+  returns: { symbol: 'c_{f}', unit: '1', doc: 'the skin-friction coefficient, local or mean as kind says' },
   doc: 'skin-friction coefficient of a smooth flat plate: local c_f (the default) or the mean C_F over the length',
   source:
     'Blasius (1908) laminar, 0.664/1.328; Schlichting, Boundary-Layer Theory 7th ed., Eq. 21.16 and its footnote, and Eq. 21.12 (one-seventh power law, mean 0.074 after Prandtl); ITTC 1957 line (mean only); White, Viscous Fluid Flow 3rd ed. ch. 6',
@@ -69,6 +71,14 @@ const skin_friction: TradeFunction = {
   },
 };
 
+const BOUNDARY_LAYER_FIELDS: readonly FieldSpec[] = [
+  { name: 'Re_x', symbol: '\\mathrm{Re}_{x}', unit: '1', doc: 'Reynolds number at x' },
+  { name: 'delta', symbol: '\\delta', unit: 'm', doc: 'boundary-layer thickness' },
+  { name: 'delta_star', symbol: '\\delta^{*}', unit: 'm', doc: 'displacement thickness' },
+  { name: 'theta', symbol: '\\theta', unit: 'm', doc: 'momentum thickness' },
+  { name: 'regime', symbol: '', unit: 'text', doc: 'laminar below Re_x = 5e5' },
+];
+
 const boundary_layer: TradeFunction = {
   name: 'boundary_layer',
   params: [
@@ -76,6 +86,7 @@ const boundary_layer: TradeFunction = {
     { name: 'x', type: 'quantity', unit: 'm', doc: 'distance from the leading edge' },
     FLUID,
   ],
+  fields: BOUNDARY_LAYER_FIELDS,
   doc: 'flat-plate boundary layer at x: Re_x, thickness delta, displacement delta_star, momentum theta, regime',
   source: 'Blasius (1908) laminar similarity solution (δ99 = 4.91 x/√Re_x); Prandtl one-seventh power law, Schlichting Eq. 21.8 (δ = 0.37 x Re_x^-1/5)',
   example: 'boundary_layer(30 m/s, 4 m, air(T: 20 degC))',
@@ -87,18 +98,24 @@ const boundary_layer: TradeFunction = {
       bl.regime === 'laminar'
         ? 'Laminar (Re_x below 5e5): Blasius, δ99 = 4.91 x/√Re_x, δ* = 1.721 x/√Re_x, θ = 0.664 x/√Re_x.'
         : 'Turbulent from the leading edge (Re_x at or above 5e5): one-seventh power law, δ = 0.37 x Re_x^-1/5, δ* = δ/8, θ = 7δ/72.';
-    return record(
-      [
-        ['Re_x', num(bl.Re_x), 'Reynolds number at x'],
-        ['delta', si(bl.delta, 'm'), 'boundary-layer thickness'],
-        ['delta_star', si(bl.delta_star, 'm'), 'displacement thickness'],
-        ['theta', si(bl.theta, 'm'), 'momentum thickness'],
-        ['regime', str(bl.regime), 'laminar below Re_x = 5e5'],
-      ],
+    return fieldRecord(
+      BOUNDARY_LAYER_FIELDS,
+      { Re_x: num(bl.Re_x), delta: si(bl.delta, 'm'), delta_star: si(bl.delta_star, 'm'), theta: si(bl.theta, 'm'), regime: str(bl.regime) },
       { warnings: [...bl.warnings, ...incompressibleOnly(U, fluid, 'δ')], remarks: [remark, 'Smooth flat plate at zero pressure gradient: on a body, an estimate of the wall layer, not its local value.'], tag: 'boundary layer' },
     );
   },
 };
+
+const FIRST_CELL_FIELDS: readonly FieldSpec[] = [
+  { name: 'Re', symbol: '\\mathrm{Re}_{L}', unit: '1', doc: 'Reynolds number on L' },
+  { name: 'cf', symbol: 'c_{f}', unit: '1', doc: 'skin-friction coefficient' },
+  { name: 'tau_w', symbol: '\\tau_{w}', unit: 'Pa', doc: 'wall shear stress' },
+  { name: 'u_tau', symbol: 'u_{\\tau}', unit: 'm/s', doc: 'friction velocity' },
+  { name: 'l_visc', symbol: '\\ell_{\\nu}', unit: 'm', doc: 'viscous length ν/u_τ' },
+  { name: 'height', symbol: '\\Delta y_{1}', unit: 'm', doc: 'first-cell height' },
+  { name: 'centroid', symbol: 'y_{p}', unit: 'm', doc: 'first-cell centre above the wall' },
+  { name: 'band', symbol: '', unit: 'text', doc: 'near-wall region targeted' },
+];
 
 const first_cell: TradeFunction = {
   name: 'first_cell',
@@ -110,6 +127,7 @@ const first_cell: TradeFunction = {
     METHOD_PARAM,
     PLACEMENT_PARAM,
   ],
+  fields: FIRST_CELL_FIELDS,
   doc: 'first-cell height for a target y+: Re, cf, tau_w, u_tau, l_visc, height, centroid, band',
   source: 'τ_w = ½ρU²c_f, u_τ = √(τ_w/ρ), l_visc = ν/u_τ (Pope, Turbulent Flows, 2000, §7.1); c_f from skin_friction at Re_L',
   example: 'first_cell(30 m/s, 4 m, air(T: 20 degC), yplus: 1)',
@@ -128,17 +146,18 @@ const first_cell: TradeFunction = {
         : 'Target y+ met at the first cell top: height = y+ × l_visc.',
       `c_f by ${method} (${c.source}) at Re built on L, the lowest along the body; near the nose τ_w is higher and so is y+, so check the run with yplus_report.`,
     ];
-    return record(
-      [
-        ['Re', num(c.Re), 'Reynolds number on L'],
-        ['cf', num(c.cf), 'skin-friction coefficient'],
-        ['tau_w', si(c.tau_w, 'Pa'), 'wall shear stress'],
-        ['u_tau', si(c.u_tau, 'm/s'), 'friction velocity'],
-        ['l_visc', si(c.l_visc, 'm'), 'viscous length ν/u_τ'],
-        ['height', si(c.height, 'm'), 'first-cell height'],
-        ['centroid', si(c.centroid, 'm'), 'first-cell centre above the wall'],
-        ['band', str(c.band), 'near-wall region targeted'],
-      ],
+    return fieldRecord(
+      FIRST_CELL_FIELDS,
+      {
+        Re: num(c.Re),
+        cf: num(c.cf),
+        tau_w: si(c.tau_w, 'Pa'),
+        u_tau: si(c.u_tau, 'm/s'),
+        l_visc: si(c.l_visc, 'm'),
+        height: si(c.height, 'm'),
+        centroid: si(c.centroid, 'm'),
+        band: str(c.band),
+      },
       { warnings, remarks, tag: 'first cell' },
     );
   },
@@ -166,6 +185,7 @@ const yplus: TradeFunction = {
     PLACEMENT_PARAM,
     METHOD_PARAM,
   ],
+  returns: { symbol: 'y^{+}', unit: '1', doc: 'the y+ of the first cell, at its centre or top as placement says' },
   doc: 'the y+ a first-cell height reaches (the inverse of first_cell)',
   source: 'y+ = y u_τ/ν with u_τ from τ_w = ½ρU²c_f (Pope, Turbulent Flows, 2000, §7.1); c_f from skin_friction at Re_L',
   example: 'yplus(40 um, 30 m/s, 4 m, air(T: 20 degC))',
@@ -181,6 +201,7 @@ const yplus: TradeFunction = {
 const law_of_wall: TradeFunction = {
   name: 'law_of_wall',
   params: [{ name: 'yplus', type: 'quantity', unit: '1', doc: 'wall distance in wall units' }],
+  returns: { symbol: 'u^{+}', unit: '1', doc: 'the mean velocity in wall units' },
   doc: `u+ at a given y+ by Spalding's single formula (κ = ${KAPPA}, B = ${B})`,
   source: `Spalding (1961), "A single formula for the law of the wall", J. Appl. Mech. 28(3); κ = ${KAPPA}, B = ${B} (Coles & Hirst 1968)`,
   example: 'law_of_wall(30)',
@@ -198,6 +219,7 @@ const friction_velocity: TradeFunction = {
     { name: 'y_p', type: 'quantity', unit: 'm', doc: 'distance of the sample from the wall' },
     FLUID,
   ],
+  returns: { symbol: 'u_{\\tau}', unit: 'm/s', doc: 'the friction velocity' },
   doc: "friction velocity u_τ that puts a velocity sample on Spalding's law of the wall",
   source: `Spalding (1961), "A single formula for the law of the wall", J. Appl. Mech. 28(3), solved for u_τ; κ = ${KAPPA}, B = ${B} (Coles & Hirst 1968)`,
   example: 'friction_velocity(12 m/s, 2 mm, air(T: 20 degC))',
@@ -212,6 +234,18 @@ const friction_velocity: TradeFunction = {
 
 const SCALES: readonly StackScale[] = ['linear', 'log'];
 
+const STACK_FIELDS: readonly FieldSpec[] = [
+  { name: 'first', symbol: '\\Delta y_{1}', unit: 'm', doc: 'first-layer height' },
+  { name: 'growth', symbol: 'r', unit: '1', doc: 'growth ratio' },
+  { name: 'count', symbol: 'N', unit: '1', doc: 'number of layers' },
+  { name: 'total', symbol: 'H', unit: 'm', doc: 'stack thickness' },
+  { name: 'last', symbol: '\\Delta y_{N}', unit: 'm', doc: 'last (outermost) layer height' },
+  { name: 'heights', symbol: '\\Delta y_{i}', unit: 'list', doc: 'layer heights from the wall out' },
+  { name: 'jump', symbol: 'J', unit: '1', doc: 'core cell / last layer (with core)' },
+  { name: 'inside', symbol: 'N_{\\delta}', unit: '1', doc: 'layers inside the boundary layer (with delta)' },
+  { name: 'coverage', symbol: 'H/\\delta', unit: '1', doc: 'stack thickness / δ (with delta)' },
+];
+
 const layer_stack: TradeFunction = {
   name: 'layer_stack',
   params: [
@@ -223,6 +257,7 @@ const layer_stack: TradeFunction = {
     { name: 'delta', type: 'quantity', unit: 'm', optional: true, doc: 'boundary-layer thickness' },
     { name: 'scale', type: 'string', default: '"linear"', choices: SCALES, doc: 'axis of the picture: linear or log' },
   ],
+  fields: STACK_FIELDS,
   doc: 'wall-layer stack from any three of first, growth, count, total: first, growth, count, total, last, heights (+ jump, inside, coverage)',
   source: 'geometric series: total = first (growth^count − 1)/(growth − 1), last = first growth^(count−1); growth by bracketed bisection',
   example: 'layer_stack(first: 20 um, growth: 1.2, total: 30 mm, delta: 60 mm)',
@@ -240,26 +275,29 @@ const layer_stack: TradeFunction = {
     }
     const scale = choiceArg(args, 'scale', SCALES);
     const s = solveStack(given);
-    const fields: Array<[string, Value, string?]> = [
-      ['first', si(s.first, 'm'), 'first-layer height'],
-      ['growth', num(s.growth), 'growth ratio'],
-      ['count', num(s.count), 'number of layers'],
-      ['total', si(s.total, 'm'), 'stack thickness'],
-      ['last', si(s.last, 'm'), 'last (outermost) layer height'],
-      ['heights', list(s.heights.map((h) => si(h, 'm'))), 'layer heights from the wall out'],
-    ];
     const layer = delta === undefined ? undefined : { delta, inside: layersInside(s.heights, delta) };
-    if (core !== undefined) fields.push(['jump', num(core / s.last), 'core cell / last layer']);
-    if (layer) {
-      fields.push(['inside', num(layer.inside), 'layers inside the boundary layer']);
-      fields.push(['coverage', num(s.total / layer.delta), 'stack thickness / δ']);
-    }
-    return record(fields, {
-      warnings: stackWarnings(s, core, layer),
-      remarks: stackRemarks(s, delta),
-      figure: figure(stackSvg({ heights: s.heights, growth: s.growth, scale, delta, core }), `Wall-layer stack to scale (${scale} axis)`),
-      tag: 'layer stack',
-    });
+    const values = {
+      first: si(s.first, 'm'),
+      growth: num(s.growth),
+      count: num(s.count),
+      total: si(s.total, 'm'),
+      last: si(s.last, 'm'),
+      heights: list(s.heights.map((h) => si(h, 'm'))),
+      jump: core === undefined ? undefined : num(core / s.last),
+      inside: layer && num(layer.inside),
+      coverage: layer && num(s.total / layer.delta),
+    };
+    return fieldRecord(
+      STACK_FIELDS,
+      values,
+      {
+        warnings: stackWarnings(s, core, layer),
+        remarks: stackRemarks(s, delta),
+        figure: figure(stackSvg({ heights: s.heights, growth: s.growth, scale, delta, core }), `Wall-layer stack to scale (${scale} axis)`),
+        tag: 'layer stack',
+      },
+      { jump: 'core cell / last layer', inside: 'layers inside the boundary layer', coverage: 'stack thickness / δ' },
+    );
   },
 };
 
@@ -304,6 +342,19 @@ function stackRemarks(s: Stack, delta: number | undefined): string[] {
   return r;
 }
 
+const REPORT_FIELDS: readonly FieldSpec[] = [
+  { name: 'count', symbol: 'N', unit: '1', doc: 'wall faces' },
+  { name: 'min', symbol: 'y^{+}_{\\min}', unit: '1', doc: 'lowest y+' },
+  { name: 'max', symbol: 'y^{+}_{\\max}', unit: '1', doc: 'highest y+' },
+  { name: 'mean', symbol: '\\bar{y}^{+}', unit: '1', doc: 'mean over faces' },
+  { name: 'weighted_mean', symbol: '\\bar{y}^{+}_{w}', unit: '1', doc: 'mean weighted by the weight column (the plain mean without one)' },
+  { name: 'p05', symbol: 'y^{+}_{5}', unit: '1', doc: '5th percentile' },
+  { name: 'p50', symbol: 'y^{+}_{50}', unit: '1', doc: 'median' },
+  { name: 'p95', symbol: 'y^{+}_{95}', unit: '1', doc: '95th percentile' },
+  { name: 'in_band', symbol: 'f_{\\text{band}}', unit: '1', doc: 'share within the band' },
+  { name: 'corrected_first', symbol: '\\Delta y_{1}', unit: 'm', doc: 'next first-layer height (with first)' },
+];
+
 /** Share of the wall a run should have inside its band (common practice: most of it). */
 const IN_BAND_AIM = 0.9;
 
@@ -317,9 +368,10 @@ const yplus_report: TradeFunction = {
     { name: 'band', type: 'list', unit: '1', default: '[0.5, 5]', doc: 'accepted y+ range [low, high]' },
     { name: 'first', type: 'quantity', unit: 'm', optional: true, doc: 'first-layer height of the run, for corrected_first' },
   ],
+  fields: REPORT_FIELDS,
   doc: 'y+ statistics of a run: count, min, max, mean, weighted_mean, p05, p50, p95, in_band, corrected_first',
   source: 'area-weighted mean and share; percentiles by Hyndman & Fan (1996) definition 7; corrected_first = first × target / weighted mean',
-  example: 'yplus_report("data/van-yplus.csv", first: 40 um)',
+  example: 'yplus_report("../data/van-yplus.csv", first: 40 um)',
   compute(args, ctx) {
     const path = stringArg(args, 'path');
     const column = stringArg(args, 'column');
@@ -335,18 +387,23 @@ const yplus_report: TradeFunction = {
     const weight = weightName === '' || weightName.toLowerCase() === 'none' ? undefined : weightName;
     const samples = readWallSamples(ctx.readData(path), column, weight);
     const st = yplusStats(samples.values, samples.weights, band);
-    const fields: Array<[string, Value, string?]> = [
-      ['count', num(st.count), 'wall faces'],
-      ['min', num(st.min), 'lowest y+'],
-      ['max', num(st.max), 'highest y+'],
-      ['mean', num(st.mean), 'mean over faces'],
-      ['weighted_mean', num(st.weighted_mean), samples.weighted ? `mean weighted by ${weight}` : 'no weight column: same as mean'],
-      ['p05', num(st.p05), '5th percentile'],
-      ['p50', num(st.p50), 'median'],
-      ['p95', num(st.p95), '95th percentile'],
-      ['in_band', shown(st.in_band * 100, '%'), `share within ${numberText(band[0])}–${numberText(band[1])}`],
-    ];
-    if (first !== undefined) fields.push(['corrected_first', si(correctedFirst(first, target, st.weighted_mean), 'm'), 'next first-layer height']);
+    const values = {
+      count: num(st.count),
+      min: num(st.min),
+      max: num(st.max),
+      mean: num(st.mean),
+      weighted_mean: num(st.weighted_mean),
+      p05: num(st.p05),
+      p50: num(st.p50),
+      p95: num(st.p95),
+      in_band: shown(st.in_band * 100, '%'),
+      corrected_first: first === undefined ? undefined : si(correctedFirst(first, target, st.weighted_mean), 'm'),
+    };
+    const notes = {
+      weighted_mean: samples.weighted ? `mean weighted by ${weight}` : 'no weight column: same as mean',
+      in_band: `share within ${numberText(band[0])}–${numberText(band[1])}`,
+      corrected_first: 'next first-layer height',
+    };
 
     const share = samples.weighted ? 'of the wall area' : 'of the faces';
     const warnings: string[] = [];
@@ -367,12 +424,17 @@ const yplus_report: TradeFunction = {
         ? 'Pass first: (the first-layer height of this run) to get corrected_first.'
         : 'corrected_first = first × target / weighted_mean; meeting a y+ target is iterative, so re-run and report again.',
     );
-    return record(fields, {
-      warnings,
-      remarks,
-      figure: figure(histogramSvg({ values: samples.values, weights: samples.weights, weighted: samples.weighted, band, target }), `y+ histogram from ${path}`),
-      tag: 'y+ report',
-    });
+    return fieldRecord(
+      REPORT_FIELDS,
+      values,
+      {
+        warnings,
+        remarks,
+        figure: figure(histogramSvg({ values: samples.values, weights: samples.weights, weighted: samples.weighted, band, target }), `y+ histogram from ${path}`),
+        tag: 'y+ report',
+      },
+      notes,
+    );
   },
 };
 
