@@ -68,7 +68,7 @@ describe('the example worksheets', () => {
     const r = await renderSheet(text, { root: 'worksheets', path: 'worksheets/towed-body-run-review.md' });
     expect(r.errors).toEqual([]);
     expect(r.checks.every((c) => c.passed)).toBe(true);
-    expect(r.reads.sort()).toEqual(['data/towed-body-forces.csv', 'data/towed-body-residuals.csv']);
+    expect(r.reads.sort()).toEqual(['data/towed-body-forces.csv', 'data/towed-body-residuals.csv', 'data/towed-body-yplus.csv']);
   });
 
   it('the three-grid study reproduces Celik et al. (2008) and passes its checks', async () => {
