@@ -402,7 +402,10 @@ describe('cell budget entry: what it reads and what it states', () => {
     // A shell, though it has an area, is not the surface band; nor is a zone record without one.
     expect(() => call('cell_budget', { ...base, surface: zoneRec({ shell: si(0.2, 'm'), area: si(10, 'm^2'), level: num(3) }) })).toThrow('surface must be the surface band, zone(area: A, level: n), not a shell zone');
     expect(() => call('cell_budget', { ...base, surface: zoneOf([['kind', str('surface')], ['level', num(3)]]) })).toThrow('surface must be the surface band, zone(area: A, level: n), not a surface zone');
+    // A level or a layer count is a plain number.
+    expect(() => call('cell_budget', { ...base, zones: zoneOf([['kind', str('box')], ['level', si(1, 'm')], ['volume', si(1, 'm^3')]]) })).toThrow(/^level must be a plain number, not /);
     const surface = zoneRec({ area: si(10, 'm^2'), level: num(3) });
+    expect(() => call('cell_budget', { ...base, surface, layers: zoneOf([['count', si(5, 'm')], ['last', si(0.01, 'm')], ['total', si(0.03, 'm')]], 'layer stack') })).toThrow(/^count must be a plain number, not /);
     const stackMsg = 'layers must be a layer_stack(…) record (with count, last and total)';
     for (const missing of ['count', 'last', 'total']) {
       const fields: Array<[string, Value]> = ([['count', num(5)], ['last', si(0.01, 'm')], ['total', si(0.03, 'm')]] as Array<[string, Value]>).filter(([k]) => k !== missing);
