@@ -165,3 +165,80 @@ describe('domain entry', () => {
     expect(r.fields.get('top')!.note).toMatch(/also floor to body/);
   });
 });
+
+describe('domain box: edges of the rules and of the input', () => {
+  it('a distance given exactly as the rule asks does not warn (COST 732: 15H behind the building, Franke et al. 2007)', () => {
+    expect(domainBox({ body: BLOCK, rule: 'cost732', given: { downstream: 15 * 10 }, ground: true }).warnings).toEqual([]);
+  });
+
+  it('refuses a zero distance and a frontal area that is not positive, in plain words', () => {
+    expect(() => domainBox({ body: BLOCK, rule: 'cost732', given: { lateral: 0 }, ground: true })).toThrow('lateral must be a positive distance, not 0 m');
+    expect(() => domainBox({ body: BLOCK, rule: 'cost732', given: {}, ground: true, frontal: 0 })).toThrow('frontal must be a positive area, not 0 m²');
+    expect(() => domainBox({ body: BLOCK, rule: 'cost732', given: {}, ground: true, frontal: -5 })).toThrow('frontal must be a positive area, not −5 m²');
+    expect(() => domainBox({ body: [20, 10, 5], rule: 'cost732', given: {}, ground: true, frontal: 60 })).toThrow(
+      "frontal 60 m² is larger than width × height = 50 m²; the body's outline seen from upstream lies within its width and height",
+    );
+  });
+
+  it('off the ground the blockage warning raises the top on both sides: 2 × top + H (blockage = A_f / (W_D H_D), Franke et al. 2007)', () => {
+    // A slab 40 m wide, 10 m tall, 5 m clearance all round: width 50 m, height 5 + 10 + 5 = 20 m, blockage 400/1000 = 40 %.
+    const d = domainBox({ body: [10, 40, 10], rule: 'cost732', given: { lateral: 5, top: 5 }, ground: false });
+    // 3 % needs height 400/(0.03 × 50) = 266.7 m, so top (266.7 − 10)/2 = 128.3 m; or width 400/(0.03 × 20) = 666.7 m, lateral 313.3 m.
+    const warning = d.warnings.find((w) => w.startsWith('blockage'))!;
+    expect(warning).toMatch(/widen the domain to lateral 313 m or more, or raise top to 128 m or more\./);
+    const topNeeded = (400 / (0.03 * 50) - 10) / 2;
+    const mended = domainBox({ body: [10, 40, 10], rule: 'cost732', given: { lateral: 5, top: topNeeded }, ground: false });
+    expect(relErr(mended.blockage, 0.03)).toBeLessThan(1e-12);
+  });
+
+  it('the floating-body warning says what to do instead', () => {
+    const d = domainBox({ body: BLOCK, rule: 'cost732', given: {}, ground: false });
+    expect(d.warnings.join('\n')).toContain('set ground: true for a body on the ground, or use rule: "three-lengths" for a body clear of any wall.');
+  });
+});
+
+describe('domain entry: units, notes and remarks', () => {
+  const dims = (r: ReturnType<typeof asRecord>, name: string) => {
+    const v = r.fields.get(name)!.value;
+    return v.kind === 'quantity' ? v.dims : undefined;
+  };
+
+  it('gives lengths in m, the volume in m³ and the frontal area in m²', () => {
+    const r = asRecord(call('domain', { body: metres(...BLOCK), rule: str('cost732') }));
+    for (const k of ['upstream', 'downstream', 'lateral', 'top', 'length', 'width', 'height']) expect(dims(r, k), k).toEqual(si(1, 'm').dims);
+    expect(dims(r, 'volume')).toEqual(si(1, 'm^3').dims);
+    expect(dims(r, 'frontal')).toEqual(si(1, 'm^2').dims);
+    expect(r.tag).toBe('domain');
+    expect(r.figure!.caption).toBe('Domain to scale, plan and side elevation (cost732 rule)');
+  });
+
+  it('passes lateral and frontal from the sheet to the box', () => {
+    const r = asRecord(call('domain', { body: metres(...BLOCK), rule: str('cost732'), lateral: si(70, 'm'), frontal: si(80, 'm^2') }));
+    expect(siField(r, 'width')).toBe(10 + 2 * 70);
+    expect(siField(r, 'frontal')).toBe(80);
+    expect(relErr(siField(r, 'blockage'), 80 / (150 * 60))).toBeLessThan(1e-12);
+    expect(r.fields.get('lateral')!.note).toBe('body side to each side boundary: given (the cost732 rule asks 5H = 50 m)');
+    expect(r.fields.get('top')!.note).toBe('body top to the top boundary: 5H = 50 m');
+  });
+
+  it('states the rule, its sources and the formulas (COST 732, Franke et al. 2007)', () => {
+    const r = asRecord(call('domain', { body: metres(...BLOCK), rule: str('cost732') }));
+    const cost = 'COST Action 732 best practice guideline (Franke et al. 2007)';
+    expect(r.remarks).toEqual([
+      `Rule: ${cost}, single building; distances in multiples of H = 10 m, the body height. Distances given on the sheet override the rule's.`,
+      `upstream 5H: ${cost}, "Extension of the domain in flow direction": 5H when the approach-flow profiles are well known.`,
+      `downstream 15H: ${cost}, same section: at least 15H behind the building.`,
+      `lateral 5H: ${cost}: 5H to each side (from memory).`,
+      `top 5H: ${cost}: 5H above the building (as summarised with Tominaga et al. 2008).`,
+      `Blockage below 3 %: ${cost}: blockage below 3 % (from memory).`,
+      "length = upstream + L + downstream; width = W + 2 × lateral; height = H + top (the body on the floor); blockage = frontal / (width × height), frontal = W × H (the body's outline as a box; give frontal: for the real projected area).",
+    ]);
+  });
+
+  it('for three-lengths and a floating body, with a frontal area given', () => {
+    const r = asRecord(call('domain', { body: metres(4, 2, 1), ground: bool(false), frontal: si(1.5, 'm^2') }));
+    expect(r.remarks[0]).toBe("Rule: three body lengths on every side (common practice); distances in multiples of L_max = 4 m, the body's largest dimension. Distances given on the sheet override the rule's.");
+    expect(r.remarks.at(-1)).toBe('length = upstream + L + downstream; width = W + 2 × lateral; height = 2 × top + H (top clearance below and above); blockage = frontal / (width × height).');
+    expect(r.fields.get('upstream')!.note).toBe('inlet to the body front: 3L_max = 12 m');
+  });
+});

@@ -211,3 +211,205 @@ describe('cell budget in the sheet language', () => {
     expect(r.parts.map((p) => p.html).join('')).toMatch(/<div class="ws-subtable"><div class="ws-subtable-head">.*?<\/div><div class="ws-table-wrap"><table class="ws-table" data-name="b.zones">/);
   });
 });
+
+describe('cell budget: edges of the octree rules', () => {
+  it('a surface with no zones takes its band out of the background', () => {
+    // Base 1 m, surface 100 m² at level 2 (h_s = 0.25 m): band 25 m³ out of the 10 000 m³ background.
+    const b = cellBudget(input({ volume: 10_000, base: 1, surface: { area: 100, level: 2 } }));
+    expect(b.bandFrom).toBe('the background');
+    expect(b.rows[0]!.volume).toBeCloseTo(10_000 - 25, 9);
+    expect(b.surfaceCells).toBeCloseTo(100 / 0.25 ** 2, 9);
+    expect(b.warnings).toEqual([]);
+  });
+
+  it('a band exactly as thick as its zone fills it without a warning, and a surface at the zone\'s level is not called coarser', () => {
+    const b = cellBudget(input({ volume: 10_000, base: 1, zones: [{ label: 'skin', kind: 'shell', level: 2, volume: 25 }], surface: { area: 100, level: 2 } }));
+    expect(b.warnings).toEqual([]);
+    expect(b.rows.find((r) => r.label === 'skin')!.volume).toBe(0);
+  });
+
+  it('the band comes out of every finest shell, which the record names', () => {
+    const b = cellBudget(
+      input({ volume: 10_000, base: 1, zones: [{ label: 'front', kind: 'shell', level: 3, volume: 30 }, { label: 'rear', kind: 'shell', level: 3, volume: 10 }], surface: { area: 40, level: 3 } }),
+    );
+    expect(b.bandFrom).toBe('front, rear');
+    // Band 40 × 1/8 = 5 m³ out of 40 m³: each keeps 7/8.
+    expect(b.rows.find((r) => r.label === 'front')!.volume).toBeCloseTo(30 * (7 / 8), 12);
+    expect(b.rows.find((r) => r.label === 'rear')!.volume).toBeCloseTo(10 * (7 / 8), 12);
+  });
+
+  it('the thicker-band warning says what to do', () => {
+    const b = cellBudget(input({ volume: 10_000, base: 1, zones: [{ label: 'skin', kind: 'shell', level: 2, volume: 1 }], surface: { area: 100, level: 2 } }));
+    expect(b.warnings).toEqual([
+      'the surface band (area × surface cell = 25 m³) is larger than the 1 m³ of skin next to the wall; the zone there is thinner than one surface cell: make it thicker, or raise its level to meet the surface level.',
+    ]);
+  });
+
+  it('levels are compared in order, whatever order the zones come in (common practice: at most 2 levels between nested regions)', () => {
+    const zones = [
+      { label: 'inner', kind: 'box', level: 4, volume: 10 },
+      { label: 'outer', kind: 'box', level: 2, volume: 100 },
+    ] as const;
+    expect(cellBudget(input({ volume: 10_000, base: 1, zones })).warnings).toEqual([]);
+    // Levels 2 and 3 next to each other are one apart.
+    expect(cellBudget(input({ volume: 10_000, base: 1, zones: [{ label: 'a', kind: 'box', level: 2, volume: 100 }, { label: 'b', kind: 'box', level: 3, volume: 10 }] })).warnings).toEqual([]);
+  });
+
+  it('a jump names every zone of the finer level, and only those', () => {
+    const b = cellBudget(
+      input({
+        volume: 10_000,
+        base: 1,
+        zones: [
+          { label: 'wake', kind: 'box', level: 3, volume: 100 },
+          { label: 'roof', kind: 'box', level: 3, volume: 50 },
+          { label: 'near', kind: 'box', level: 4, volume: 10 },
+        ],
+      }),
+    );
+    expect(b.warnings).toEqual([
+      'the zones wake, roof (level 3) is 3 levels finer than the level-0 region around it; octree meshes keep neighbouring cells within one level, so the grading between them adds cells this budget does not count (common practice: at most 2 levels between nested regions); add an intermediate zone.',
+    ]);
+  });
+
+  it('surface cells twice the last layer are still within the usual jump (common practice: about 2)', () => {
+    const b = cellBudget(input({ volume: 10_000, base: 1, zones: [{ label: 'near', kind: 'box', level: 2, volume: 100 }], surface: { area: 10, level: 3 }, layers: { count: 5, last: 0.0625, total: 0.2 } }));
+    expect(b.warnings).toEqual([]);
+    const far = cellBudget(input({ volume: 10_000, base: 1, zones: [{ label: 'near', kind: 'box', level: 2, volume: 100 }], surface: { area: 10, level: 3 }, layers: { count: 5, last: 0.02, total: 0.06 } }));
+    expect(far.warnings[0]).toMatch(/; add layers, grow them faster within the usual 1\.3, or refine the surface a level\.$/);
+  });
+
+  it('the layer row holds the area × the stack thickness, and CPU time scales with the iterations', () => {
+    const b = cellBudget(input({ volume: 10_000, base: 1, surface: { area: 10, level: 3 }, layers: { count: 5, last: 0.1, total: 0.3 }, iterations: 3000 }));
+    const layerRow = b.rows.at(-1)!;
+    expect(layerRow).toEqual({ label: 'wall layers (5)', level: 'layers', size: 0.125, volume: 10 * 0.3, cells: b.layerCells });
+    // 2 CPU-hours per million cells per 1000 iterations, for 3000 iterations.
+    expect(b.cpuHours).toBeCloseTo((b.cells / 1e6) * 2 * 3, 12);
+  });
+
+  it('without a surface the budget names no band', () => {
+    expect(cellBudget(input({ volume: 10_000, base: 1 }))).not.toHaveProperty('bandFrom');
+  });
+
+  it('zones that fill their container exactly are accepted, as nested and as exclusive', () => {
+    expect(cellBudget(input({ volume: 1000, base: 1, zones: [{ label: 'all', kind: 'box', level: 1, volume: 1000 }] })).rows[0]!.volume).toBe(0);
+    const nested = cellBudget(input({ volume: 1000, base: 1, zones: [{ label: 'a', kind: 'box', level: 1, volume: 100 }, { label: 'b', kind: 'box', level: 2, volume: 100 }] }));
+    expect(nested.rows.map((r) => r.volume)).toEqual([900, 0, 100]);
+    expect(cellBudget(input({ volume: 1000, base: 1, mode: 'exclusive', zones: [{ label: 'a', kind: 'box', level: 1, volume: 600 }, { label: 'b', kind: 'box', level: 2, volume: 400 }] })).rows[0]!.volume).toBe(0);
+  });
+
+  it('zones of no volume hold no cells', () => {
+    const b = cellBudget(input({ volume: 1000, base: 1, zones: [{ label: 'empty', kind: 'box', level: 1, volume: 0 }, { label: 'none', kind: 'box', level: 2, volume: 0 }] }));
+    expect(b.rows.map((r) => r.volume)).toEqual([1000, 0, 0]);
+  });
+
+  it('refuses rates and sizes that are not positive, naming which', () => {
+    for (const [key, name] of [['volume', 'the domain volume'], ['base', 'base'], ['tetPerHex', 'tet_per_hex'], ['tetPerPoly', 'tet_per_poly'], ['memoryPerMillion', 'memory_per_million'], ['cpuPerMillion', 'cpu_per_million'], ['iterations', 'iterations']] as const) {
+      expect(() => cellBudget(input({ [key]: 0 }))).toThrow(`${name} must be positive, not 0`);
+      expect(() => cellBudget(input({ [key]: -2 }))).toThrow(`${name} must be positive, not −2`);
+      expect(() => cellBudget(input({ [key]: Number.NaN }))).toThrow(new RegExp(`^${name} must be positive`));
+    }
+    expect(() => cellBudget(input({ zones: [{ label: 'w', kind: 'box', level: 1, volume: -1 }] }))).toThrow('zone w has no usable volume (−1 m³)');
+    expect(() => cellBudget(input({ zones: [{ label: 'w', kind: 'box', level: 1, volume: Number.NaN }] }))).toThrow(/^zone w has no usable volume/);
+    expect(() => cellBudget(input({ surface: { area: 0, level: 2 } }))).toThrow('the surface area must be positive');
+    expect(() => cellBudget(input({ zones: [{ label: 'a', kind: 'box', level: 1, volume: 10 }, { label: 'b', kind: 'box', level: 2, volume: 20 }] }))).toThrow(
+      'zones nest (each finer zone inside a coarser one), or give volumes: "exclusive" when each zone\'s volume is its own',
+    );
+  });
+});
+
+describe('cell budget entry: what it reads and what it states', () => {
+  const domainVol = si(10_000, 'm^3');
+  const zoneOf = (fields: Array<[string, Value]>, tag = 'zone'): RecordValue => ({ kind: 'record', fields: new Map(fields.map(([k, v]) => [k, { value: v }])), warnings: [], remarks: [], tag }) as RecordValue;
+
+  it('labels unnamed zones by their place and kind, and takes a single zone without a list', () => {
+    const box = zoneRec({ box: metres(20, 10, 8), level: num(1) });
+    const r = asRecord(call('cell_budget', { domain: domainVol, base: si(1, 'm'), zones: box }));
+    const t = r.fields.get('zones')!.value;
+    if (t.kind !== 'table') throw new Error('zones is not a table');
+    expect(t.rows.map((row) => row[0])).toEqual([str('background'), str('zone 1 (box)')]);
+    const named = asRecord(call('cell_budget', { domain: domainVol, base: si(1, 'm'), zones: { kind: 'list', items: [zoneRec({ box: metres(20, 10, 8), level: num(1), label: str('wake') })] } }));
+    const t2 = named.fields.get('zones')!.value;
+    expect(t2.kind === 'table' && t2.rows[1]![0]).toEqual(str('wake'));
+  });
+
+  it('the table gives each region its level, cell size in m, volume in m³ and cells; the layer row says "layers"', () => {
+    const stack = asRecord(createRegistry().get('layer_stack')!.compute({ first: si(0.015, 'm'), growth: num(1.2), count: num(10), scale: str('linear') }, stubContext()));
+    const r = asRecord(call('cell_budget', { domain: domainVol, base: si(1, 'm'), surface: zoneRec({ area: si(100, 'm^2'), level: num(3) }), layers: stack }));
+    const t = r.fields.get('zones')!.value;
+    if (t.kind !== 'table') throw new Error('zones is not a table');
+    const [bg, band, layers] = t.rows;
+    expect(bg![1]).toEqual(num(0));
+    expect(band![0]).toEqual(str('surface band'));
+    expect(layers![0]).toEqual(str('wall layers (10)'));
+    expect(layers![1]).toEqual(str('layers'));
+    for (const row of t.rows) {
+      expect(row).toHaveLength(5);
+      expect(row[2]!.kind === 'quantity' && row[2]!.dims).toEqual(si(1, 'm').dims);
+      expect(row[3]!.kind === 'quantity' && row[3]!.dims).toEqual(si(1, 'm^3').dims);
+    }
+    // With a surface and layers given, their counts carry their plain doc, not a "not given" note.
+    expect(r.fields.get('layer_cells')!.note).toBe('cells in the wall layers');
+    expect(r.fields.get('surface_cells')!.note).toBe('cells in the surface band');
+    expect(r.tag).toBe('cell budget');
+  });
+
+  it('states the rules it counts by, for nested zones with a surface, layers and a solid', () => {
+    const stack = asRecord(createRegistry().get('layer_stack')!.compute({ first: si(0.015, 'm'), growth: num(1.2), count: num(10), scale: str('linear') }, stubContext()));
+    const r = asRecord(
+      call('cell_budget', {
+        domain: domainVol,
+        base: si(1, 'm'),
+        solid: si(200, 'm^3'),
+        zones: { kind: 'list', items: [zoneRec({ box: metres(20, 10, 8), level: num(1), label: str('near') })] },
+        surface: zoneRec({ area: si(100, 'm^2'), level: num(3) }),
+        layers: stack,
+      }),
+    );
+    expect(r.remarks).toEqual([
+      'Refinement rule (common practice): cells far from the body can be coarse because the gradients there are small; zones refine towards the body and its wake, and the surface, where velocity and pressure gradients are highest, is finest.',
+      'Cells per region N = V / h³ with h = h0 / 2^n (h0 = base, n = level), for cubic octree cells.',
+      "Zones nest: each zone is given whole and the zones of a level lie inside those of the next coarser level, so a level's own volume is its zones' volume less the next finer level's (shared in proportion to volume), and the background is the domain less the coarsest zones. No volume is counted twice.",
+      "The body's own volume (solid) is taken out of the domain.",
+      'Surface band N_s = A / h_s² (one cell of size h_s = h0 / 2^n_s across, over the area A); its volume A h_s is taken out of near, next to the wall.',
+      'Wall layers N_layer = count × A / h_s²: one cell per surface face per layer; layers push the surface cells out rather than replace them, so the surface cells keep their count.',
+      'Tetrahedral equivalent: 5.5 tetrahedra per hexahedron (a cube splits into 5 or 6 tetrahedra, geometry), and 2 prisms per hexahedral layer cell (two triangles per square face).',
+      'Polyhedral equivalent: the tetrahedral count / 4.5 (a polyhedral mesh needs about a quarter to a fifth the cells of a tetrahedral one at equal resolution, common practice), and 1 layer cell per hexahedral one (about one polygon per square face).',
+      'Memory 2 GB and CPU time 2 h per million cells per 1000 iterations, for 1000 iterations: common-practice figures for a segregated incompressible RANS solver (about 1–2 GB per million cells); set memory_per_million and cpu_per_million from your own runs.',
+      'Transition cells between levels are not counted; keep nested regions within 2 levels of each other.',
+    ]);
+  });
+
+  it('states exclusive zones, and says nothing of a band or layers that are not there', () => {
+    const r = asRecord(call('cell_budget', { domain: domainVol, base: si(1, 'm'), volumes: str('exclusive') }));
+    expect(r.remarks[2]).toBe("Zones are exclusive: each zone's volume is the volume at its level only, and the background is the domain less all zones.");
+    expect(r.remarks.join('\n')).not.toMatch(/Surface band|Wall layers N_layer/);
+    expect(r.fields.get('surface_cells')!.note).toBe('no surface given (surface:)');
+  });
+
+  it('refuses what it cannot read, in plain words', () => {
+    const base = { domain: domainVol, base: si(1, 'm') };
+    expect(() => call('cell_budget', { base: si(1, 'm') })).toThrow('missing argument domain');
+    expect(() => call('cell_budget', { ...base, domain: zoneOf([['length', si(10, 'm')]], 'domain') })).toThrow('domain must be a domain(…) record with a volume field, or a volume in m³');
+    expect(() => call('cell_budget', { ...base, solid: si(10_000, 'm^3') })).toThrow(/^solid 10000 m³ fills the domain of 10000 m³/);
+    const notZone = /^zones\[1\] is not a zone; make one with zone\(box: \[l, w, h\] m, level: n\)/;
+    expect(() => call('cell_budget', { ...base, zones: zoneOf([['kind', str('box')], ['level', num(1)], ['volume', si(1, 'm^3')]], 'domain') })).toThrow(notZone);
+    expect(() => call('cell_budget', { ...base, zones: zoneOf([['level', num(1)], ['volume', si(1, 'm^3')]]) })).toThrow(notZone);
+    expect(() => call('cell_budget', { ...base, zones: zoneOf([['kind', num(1)], ['level', num(1)]]) })).toThrow(notZone);
+    expect(() => call('cell_budget', { ...base, zones: zoneOf([['kind', str('cone')], ['level', num(1)]]) })).toThrow(notZone);
+    expect(() => call('cell_budget', { ...base, zones: zoneOf([['kind', str('box')], ['level', num(1.5)], ['volume', si(1, 'm^3')]]) })).toThrow(/^zones\[1\]\.level must be a whole number/);
+    expect(() => call('cell_budget', { ...base, zones: { kind: 'list', items: [zoneRec({ box: metres(1, 1, 1), level: num(1) }), num(3)] } })).toThrow(/^zones\[2\] is a plain number, not a zone/);
+    // A shell, though it has an area, is not the surface band; nor is a zone record without one.
+    expect(() => call('cell_budget', { ...base, surface: zoneRec({ shell: si(0.2, 'm'), area: si(10, 'm^2'), level: num(3) }) })).toThrow('surface must be the surface band, zone(area: A, level: n), not a shell zone');
+    expect(() => call('cell_budget', { ...base, surface: zoneOf([['kind', str('surface')], ['level', num(3)]]) })).toThrow('surface must be the surface band, zone(area: A, level: n), not a surface zone');
+    // A level or a layer count is a plain number.
+    expect(() => call('cell_budget', { ...base, zones: zoneOf([['kind', str('box')], ['level', si(1, 'm')], ['volume', si(1, 'm^3')]]) })).toThrow(/^level must be a plain number, not /);
+    const surface = zoneRec({ area: si(10, 'm^2'), level: num(3) });
+    expect(() => call('cell_budget', { ...base, surface, layers: zoneOf([['count', si(5, 'm')], ['last', si(0.01, 'm')], ['total', si(0.03, 'm')]], 'layer stack') })).toThrow(/^count must be a plain number, not /);
+    const stackMsg = 'layers must be a layer_stack(…) record (with count, last and total)';
+    for (const missing of ['count', 'last', 'total']) {
+      const fields: Array<[string, Value]> = ([['count', num(5)], ['last', si(0.01, 'm')], ['total', si(0.03, 'm')]] as Array<[string, Value]>).filter(([k]) => k !== missing);
+      expect(() => call('cell_budget', { ...base, surface, layers: zoneOf(fields, 'layer stack') }), missing).toThrow(stackMsg);
+    }
+  });
+});

@@ -48,3 +48,40 @@ describe('octree refinement levels', () => {
     expect(asRecord(call('refinement', { base: si(1, 'm'), target: si(2, 'm') })).remarks.join('\n')).toMatch(/no refinement is needed/);
   });
 });
+
+describe('octree levels at the edges', () => {
+  it('thirty halvings are the most a sheet may ask for, exactly reached', () => {
+    // 2^-30 is exact in binary: log2(1 / 2^-30) = 30 halvings (octree halving h0 / 2^n).
+    expect(levelsFor(1, 2 ** -30)).toBe(30);
+    expect(checkLevel(30)).toBe(30);
+    expect(() => checkLevel(31)).toThrow('level 31 is more than the 30 halvings a sheet may ask for');
+    expect(checkLevel(0)).toBe(0);
+  });
+
+  it('refuses a zero target and names the argument', () => {
+    expect(() => levelsFor(1, 0)).toThrow('target must be a positive cell size, not 0 m');
+    expect(() => checkLevel(2.5)).toThrow('level must be a whole number of halvings, 0 or more, not 2.5');
+    expect(() => checkLevel(-1, 'zones[2].level')).toThrow(/^zones\[2\]\.level must be a whole number/);
+  });
+
+  it('the entry lists the sizes in one unit that suits the finest, and states the rule', () => {
+    const sizesOf = (base: number, target: number) => {
+      const r = asRecord(call('refinement', { base: si(base, 'm'), target: si(target, 'm') }));
+      const v = r.fields.get('sizes')!.value;
+      if (v.kind !== 'list') throw new Error('sizes is not a list');
+      return { r, items: v.items.map((i) => (i.kind === 'quantity' ? [i.si, i.unit?.text, i.pinned] : [])) };
+    };
+    // 8 m to 1 m: whole metres; 1 m exactly stays in m.
+    expect(sizesOf(8, 1).items).toEqual([[8, 'm', true], [4, 'm', true], [2, 'm', true], [1, 'm', true]]);
+    // 2 mm exactly stays in mm; below 1 mm the list is in µm.
+    expect(sizesOf(0.004, 0.001).items.map((i) => i[1])).toEqual(['mm', 'mm', 'mm']);
+    expect(sizesOf(0.002, 0.0005).items.map((i) => i[1])).toEqual(['um', 'um', 'um']);
+    const { r } = sizesOf(2, 0.3);
+    expect(r.tag).toBe('refinement');
+    expect(r.remarks[0]).toBe('levels = ceil(log2(h0 / h)) = ceil(log2(2 / 0.3)); the cell size at level n is h0 / 2^n.');
+    // Level 3 gives 250 mm; one level fewer would give 2 × 250 mm = 500 mm.
+    expect(r.remarks[1]).toMatch(/one level fewer would give 500 mm, coarser than the target\.$/);
+    const finest = r.fields.get('finest')!.value;
+    expect(finest.kind === 'quantity' && finest.dims).toEqual(si(1, 'm').dims);
+  });
+});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { num, si } from '../../server/core/index.js';
+import { num, si, str } from '../../server/core/index.js';
 import { domainStudy } from '../../server/core/domain/study.js';
 import { asRecord, call, relErr, siField, textField } from './domain-helpers.js';
 
@@ -35,5 +35,28 @@ describe('domain-independence verdicts', () => {
     expect(textField(ok, 'verdict')).toBe('domain independent');
     expect(ok.warnings).toEqual([]);
     expect(() => call('domain_study', { small: si(412, 'N'), large: num(0.3) })).toThrow(/compare the same quantity/);
+  });
+});
+
+describe('domain study: what it refuses and what it states', () => {
+  it('refuses values that are not finite numbers', () => {
+    expect(() => domainStudy(Number.NaN, 1, 0.01)).toThrow('small and large must be finite numbers');
+    expect(() => domainStudy(1, Number.POSITIVE_INFINITY, 0.01)).toThrow('small and large must be finite numbers');
+  });
+
+  it('the entry refuses a value that is not a quantity, and names it', () => {
+    expect(() => call('domain_study', { small: str('0.41'), large: num(0.4) })).toThrow(/^small and large must be numbers or quantities, not /);
+    expect(() => call('domain_study', { small: num(0.41), large: str('0.4') })).toThrow(/^small and large must be numbers or quantities, not /);
+    expect(() => call('domain_study', { large: num(0.4) })).toThrow(/^small and large must be numbers or quantities, not /);
+    expect(() => call('domain_study', { small: num(0.41) })).toThrow(/^small and large must be numbers or quantities, not /);
+  });
+
+  it('states the rule it applies (Celik et al. 2008, e_a against the finer grid)', () => {
+    const r = asRecord(call('domain_study', { small: num(0.3), large: num(0.301), tol: num(0.005) }));
+    expect(r.tag).toBe('domain study');
+    expect(r.remarks).toEqual([
+      'change = (large − small) / large: the enlarged domain is the better estimate, as the finer grid is in the approximate relative error of Celik et al. (2008).',
+      'Verdict "domain independent" when |change| ≤ 0.5 %; otherwise "enlarge the domain" and repeat until the change is negligible.',
+    ]);
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { bool, si, str } from '../../server/core/index.js';
-import { boxArea, boxVolume, shellVolume, thinShellLoss } from '../../server/core/domain/zones.js';
+import { bodyDims, boxArea, boxVolume, shellVolume, surfaceArea, thinShellLoss } from '../../server/core/domain/zones.js';
 import { asRecord, call, metres, relErr, siField, textField } from './domain-helpers.js';
 
 /**
@@ -105,5 +105,82 @@ describe('zone entry', () => {
     expect(() => call('zone', { box: metres(1, 1, 1), level: si(1.5) })).toThrow(/whole number/);
     expect(() => call('zone', { level: si(3) })).toThrow(/give box, shell or volume/);
     expect(() => call('zone', { shell: si(0.2, 'm'), level: si(3) })).toThrow(/needs the surface it wraps/);
+  });
+});
+
+describe('zone volumes: a body that is not a cube, and what is refused', () => {
+  it("a shell round a taller box on the floor: the edges along the height count twice (Steiner's formula for the body mirrored in the floor)", () => {
+    // Steiner (1840) for the mirrored body [L, W, 2H], halved: A d + (π/2)(L + W + 2H) d² + (2/3)π d³.
+    const [L, W, H, d] = [2, 1, 1.5, 0.4];
+    const s = shellVolume(d, undefined, [L, W, H], true);
+    const A = L * W + 2 * (L * H + W * H);
+    expect(relErr(s.volume, A * d + (Math.PI / 2) * (L + W + 2 * H) * d * d + ((2 * Math.PI) / 3) * d ** 3)).toBeLessThan(1e-12);
+    expect(relErr(s.volume, shellByCounting(L, W, H, d, true, 0.01))).toBeLessThan(1e-3);
+    expect(s.warnings).toEqual([]);
+  });
+
+  it('a thin shell at exactly the 5 % loss does not warn yet', () => {
+    // The share x/(1 + x) is 5 % at x = 1/19; for A = 24 m² (a = 2 m) solve πd/4 + (2π/9)(d/2)² = 1/19 for d.
+    const a = 2;
+    const d = ((-Math.PI / 2 + Math.sqrt((Math.PI / 2) ** 2 + (4 * (2 * Math.PI)) / (9 * 19))) / ((2 * (2 * Math.PI)) / 9)) * a;
+    expect(thinShellLoss(d, 24)).toBeCloseTo(0.05, 12);
+    expect(shellVolume(d * 0.999, 24, undefined, true).warnings).toEqual([]);
+    expect(shellVolume(d * 1.001, 24, undefined, true).warnings).toHaveLength(1);
+  });
+
+  it('refuses lengths, areas and solids that cannot be, naming which', () => {
+    expect(() => boxVolume([0, 4, 3])).toThrow('box[1] must be positive, not 0 m');
+    expect(() => boxVolume([12, -4, 3])).toThrow('box[2] must be positive, not −4 m');
+    expect(() => boxVolume([12, 4, Number.NaN])).toThrow(/^box\[3\] must be positive/);
+    expect(() => boxVolume([12, 4, 3], -1)).toThrow('solid must be a volume of 0 or more, not −1 m³');
+    expect(() => boxVolume([12, 4, 3], Number.NaN)).toThrow(/^solid must be a volume of 0 or more/);
+    expect(() => boxVolume([12, 4, 3], 144)).toThrow("solid 144 m³ fills the box of 144 m³; the solid is the body's own volume inside it, which must be smaller");
+    expect(boxVolume([12, 4, 3], 0)).toBe(144);
+    expect(() => bodyDims([2, 1])).toThrow('body must be a list of three lengths [L, W, H], not 2');
+    expect(() => bodyDims([2, 1, 0])).toThrow('body[3] must be positive, not 0 m');
+    expect(() => surfaceArea(0, undefined, true)).toThrow('area must be positive, not 0 m²');
+    expect(() => surfaceArea(undefined, undefined, true)).toThrow("give the surface's area: (or the body: [L, W, H] of a box-shaped body)");
+    expect(surfaceArea(undefined, [5, 2, 2.5], false)).toBe(2 * (10 + 12.5 + 5));
+    expect(() => shellVolume(0, 10, undefined, true)).toThrow('shell must be positive, not 0 m');
+    expect(() => shellVolume(0.1, -3, [2, 1, 1], false)).toThrow('area must be positive, not −3 m²');
+  });
+});
+
+describe('zone entry: remarks and refusals', () => {
+  it('says how each volume was found', () => {
+    const box = asRecord(call('zone', { box: metres(12, 4, 3), level: si(2) }));
+    expect([box.remarks, box.warnings]).toEqual([['Box volume l × w × h.'], []]);
+    expect(asRecord(call('zone', { box: metres(12, 4, 3), level: si(2), solid: si(20, 'm^3') })).remarks).toEqual(['Box volume l × w × h less the solid it holds.']);
+    const vol = asRecord(call('zone', { volume: si(500, 'm^3'), level: si(1) }));
+    expect([siField(vol, 'volume'), vol.remarks, vol.warnings]).toEqual([500, [], []]);
+    expect(asRecord(call('zone', { shell: si(0.01, 'm'), area: si(24, 'm^2'), level: si(5) })).remarks).toEqual([
+      'Shell volume = area × distance (thin-shell limit; edges and corners of the body are left out).',
+    ]);
+    expect(asRecord(call('zone', { shell: si(0.4, 'm'), body: metres(2, 1, 1), level: si(5) })).remarks).toEqual([
+      "Shell around a box body on the floor: A d + (π/2)(L + W + 2H) d² + (2/3)π d³ (Steiner's formula for the body mirrored in the floor, halved).",
+    ]);
+    const both = asRecord(call('zone', { shell: si(0.4, 'm'), body: metres(2, 1, 1), area: si(8, 'm^2'), ground: bool(false), level: si(5) }));
+    expect(both.remarks).toEqual([
+      "Shell around a box body: A d + π(L + W + H) d² + (4/3)π d³ (Steiner's formula: face slabs, edge quarter-cylinders, corner eighth-spheres).",
+      "The given area replaces the box's own in the first term; edges and corners are the box's.",
+    ]);
+    expect(both.warnings).toEqual([]);
+    for (const [name, unit] of [['volume', 'm^3'], ['area', 'm^2'], ['distance', 'm']] as const) {
+      const v = both.fields.get(name)!.value;
+      expect(v.kind === 'quantity' && v.dims, name).toEqual(si(1, unit).dims);
+    }
+    const band = asRecord(call('zone', { area: si(38, 'm^2'), level: si(6) }));
+    expect(band.remarks).toEqual(['The surface band: one cell layer at this level over the area.']);
+    expect(band.warnings).toEqual([]);
+    expect(asRecord(call('zone', { body: metres(5, 2, 2.5), level: si(6) })).remarks).toEqual([
+      "The surface band: one cell layer at this level over the box body's wetted area.",
+    ]);
+  });
+
+  it('refuses a zone volume that is not positive, a solid that fills it, two shapes named, and a solid in a surface band', () => {
+    expect(() => call('zone', { volume: si(0, 'm^3'), level: si(1) })).toThrow('volume must be positive, not 0 m³');
+    expect(() => call('zone', { volume: si(50, 'm^3'), solid: si(50, 'm^3'), level: si(1) })).toThrow(/fills the zone of 50 m³/);
+    expect(() => call('zone', { box: metres(1, 1, 1), shell: si(1, 'm'), level: si(1) })).toThrow('give one of box, shell and volume, not box and shell');
+    expect(() => call('zone', { area: si(10, 'm^2'), solid: si(1, 'm^3'), level: si(1) })).toThrow('solid belongs to a box or volume zone that holds the body; a surface lies outside the body');
   });
 });
