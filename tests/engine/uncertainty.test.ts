@@ -121,3 +121,28 @@ describe('checks over the range', () => {
     expect(one.checks[0]!.range).toEqual({ holds: true, text: 'holds at nominal, holds at both ends of the ±2u box' });
   });
 });
+
+describe('the page', () => {
+  it('shows value ± u beside every number that has one, and nothing where none has', async () => {
+    const r = await sheet(['U = 110 km/h ± 5 km/h', 'L = 5.9 m ± 1 % (uniform)', 'nu = 1.6e-5 m^2/s', 'Re = U * L / nu', 'gas = fluid(rho: 1.2 kg/m^3, mu: 1.8e-5 Pa s)', 'wr = first_cell(U, L, gas, yplus: 1)', 'plain = 2 * nu']);
+    expect(r.html).toContain('>± 5 km/h<');
+    expect(r.html).toContain('>± 0.034 m (uniform)<');
+    // Re: √(4.545² + (1/√3)²) % = 4.58 %.
+    const re = /data-u="([^"]+)"[^>]*>± ([^<]+) \(([\d.]+) %\)</.exec(r.html.slice(r.html.indexOf('id="v-Re"')))!;
+    expect(Number(re[1])).toBeCloseTo(r.values.Re!.u!, 6);
+    expect(Number(re[3])).toBeCloseTo(Math.hypot((100 * 5) / 110, 1 / Math.sqrt(3)), 1);
+    // A record field the inputs move gets one; a field they do not move (rho) gets none.
+    const record = r.html.slice(r.html.indexOf('id="v-wr"'));
+    expect(record).toMatch(/data-name="wr.height"[^>]*>[^<]*<\/span> <span class="ws-u"/);
+    const gas = r.html.slice(r.html.indexOf('id="v-gas"'), r.html.indexOf('id="v-wr"'));
+    expect(gas).not.toContain('class="ws-u"');
+    const plain = r.html.slice(r.html.indexOf('id="v-plain"'));
+    expect(plain.slice(0, plain.indexOf('</div>'))).not.toContain('class="ws-u"');
+  });
+
+  it('says under a check whether it holds over the range', async () => {
+    const r = await sheet(['a = 5 m ± 0.2 m', 'b = 5 m ± 0.2 m', 'y = a + b', 'check y < 10.7 m "short enough"']);
+    expect(r.html).toContain('data-range-holds="false"');
+    expect(r.html).toContain("over the inputs' range: holds at nominal, fails at a = 5.4 m, b = 5.4 m");
+  });
+});
