@@ -146,3 +146,34 @@ describe('the page', () => {
     expect(r.html).toContain("over the inputs' range: holds at nominal, fails at a = 5.4 m, b = 5.4 m");
   });
 });
+
+describe('with overrides and sweeps', () => {
+  const lines = ['U = 20 m/s ± 5 %', 'L = 2 m', 'gas = fluid(rho: 1.2 kg/m^3, mu: 1.8e-5 Pa s)', 'Re = U * L / gas.nu'];
+  const text = (extra: string[] = []) => '```basis\n' + [...lines, ...extra].join('\n') + '\n```\n';
+
+  it('keeps the sheet\'s uncertainty when --set replaces the value, and takes one given with it', async () => {
+    const { renderSheet } = await import('../../server/pipeline/index.js');
+    const set = await renderSheet(text(), { overrides: { U: '30 m/s' } });
+    expect(set.errors).toEqual([]);
+    expect(set.values.U!.si).toBe(30);
+    // 5 % of the new value.
+    expect(set.values.U!.u).toBeCloseTo(1.5, 12);
+    expect(set.values.Re!.u! / set.values.Re!.si!).toBeCloseTo(0.05, 12);
+    const own = await renderSheet(text(), { overrides: { U: '30 m/s ± 3 m/s' } });
+    expect(own.values.U!.u).toBe(3);
+    expect(own.overrides[0]).toMatchObject({ name: 'U', was: '20 m/s ± 5 %', now: '30 m/s ± 3 m/s' });
+    const bad = await renderSheet(text(), { overrides: { U: '30 m/s ± 3 Pa' } });
+    expect(bad.errors[0]!.message).toContain('the uncertainty of U is in Pa');
+  });
+
+  it('sweeps an uncertain input row by row at the nominal values, the rest unchanged', async () => {
+    const { renderSheet } = await import('../../server/pipeline/index.js');
+    const r = await renderSheet(text(['plan = sweep(U, [10, 20] m/s, Re)', 'check Re < 3e6 "modest"']));
+    expect(r.errors).toEqual([]);
+    const rows = r.values.plan!.table!.rows;
+    expect(rows[1]![1]!.si).toBeCloseTo(r.values.Re!.si!, 9);
+    expect(rows[1]![1]!.u).toBeUndefined();
+    expect(r.values.Re!.u).toBeCloseTo(0.05 * r.values.Re!.si!, 6);
+    expect(r.checks[0]!.range!.holds).toBe(true);
+  });
+});
