@@ -48,10 +48,12 @@ export function checkOverRange(line: number, nominal: boolean, inputs: readonly 
     if (outcome === false || outcome === undefined) failedAt ??= p.changes;
     else cannot ??= outcome;
   }
-  const where = corners ? `${tried.length === 2 ? 'both ends' : `the ${tried.length} corners`} of the ±2u box` : `the ±2u ends of each of the ${inputs.length} inputs, one at a time (more than ${MAX_CORNER_INPUTS} inputs)`;
+  const box = tried.length === 2 && corners ? 'the ±2u range' : corners ? 'the ±2u box' : undefined;
+  const all = box ? (tried.length === 2 ? `both ends of ${box}` : `all ${tried.length} corners of ${box}`) : `the ±2u ends of each of the ${inputs.length} inputs, one at a time (more than ${MAX_CORNER_INPUTS} inputs)`;
+  const some = box ? `${failures} of the ${tried.length} ${tried.length === 2 ? 'ends' : 'corners'} of ${box}` : `${failures} of the ${tried.length} ends tried one at a time (more than ${MAX_CORNER_INPUTS} inputs)`;
   const at = nominal ? 'holds at nominal' : 'fails at nominal';
-  if (failures === 0) return { holds: true, text: `${at}, holds at ${where}` };
+  if (failures === 0) return { holds: true, text: `${at}${nominal ? ' and' : ', holds'} at ${all}` };
   const label = (m: Map<string, Value>) => [...m].map(([n, v]) => `${n} = ${valueWords(v)}`).join(', ');
   const fails = failedAt ? `fails at ${label(failedAt)}` : `cannot run at one point (line ${cannot!.line}: ${cannot!.message})`;
-  return { holds: false, text: `${at}, ${fails} (${failures} of ${where})` };
+  return { holds: false, text: `${at}, ${fails} (${some})` };
 }

@@ -172,7 +172,7 @@ function monteCarlo(e: CallExpr, t: Target, env: UncertaintyEnv, samples: number
     // Remarks are in the record below.
   } else warnings.push(`first order and Monte Carlo disagree beyond the tolerance of JCGM 101:2008 §8: ${comparison}; take the Monte Carlo interval`);
   const remarks = [
-    `Monte Carlo method of JCGM 101:2008: ${samples.toLocaleString('en')} samples (seed ${seed}) of ${inputs.map((i) => `${i.name} (${i.distribution})`).join(', ')}, each run through the ${countText(rerun.downstream.length, 'statement')} between them and ${t.name}.`,
+    `Monte Carlo method of JCGM 101:2008: ${samples.toLocaleString('en')} samples (seed ${seed}) of ${inputs.map((i) => `${i.name} (${i.distribution})`).join(', ')}, each run through the ${countText(rerun.downstream.length, 'statement')} between ${inputs.length === 1 ? inputs[0]!.name : 'them'} and ${t.name}.`,
     `${shortest ? 'Shortest' : 'Probabilistically symmetric'} 95 % coverage interval (JCGM 101 §7.7).`,
   ];
   if (check.agrees) remarks.push(`The first-order result is validated (JCGM 101 §8): ${comparison}.`);

@@ -118,7 +118,7 @@ describe('checks over the range', () => {
     expect(c.range).toEqual({ holds: false, text: 'holds at nominal, fails at a = 5.4 m, b = 5.4 m (1 of the 4 corners of the ±2u box)' });
     // Each end alone (5.4 + 5 = 10.4 m) passes: only the corner fails.
     const one = await sheet(['a = 5 m ± 0.2 m', 'b = 5 m', 'y = a + b', 'check y < 10.7 m "short enough"']);
-    expect(one.checks[0]!.range).toEqual({ holds: true, text: 'holds at nominal, holds at both ends of the ±2u box' });
+    expect(one.checks[0]!.range).toEqual({ holds: true, text: 'holds at nominal and at both ends of the ±2u range' });
   });
 });
 
