@@ -105,6 +105,19 @@ export interface RunOptions {
   render?: boolean;
 }
 
+/** How far a long statement of a run has come (a Monte Carlo run): told while the run goes on. */
+export interface RunProgress {
+  /** The statement's line. */
+  line: number;
+  done: number;
+  total: number;
+}
+
+/** What a run tells as it goes; functions, so never part of RunOptions (which crosses to the sandbox). */
+export interface RunHooks {
+  progress?: (p: RunProgress) => void;
+}
+
 /** An input replaced for one run. */
 export interface Override {
   name: string;
