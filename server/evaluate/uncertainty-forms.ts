@@ -11,6 +11,7 @@ import { dimsMul } from '../units/dims.js';
 import { unitLabel } from '../units/labels.js';
 import { quantity } from '../units/quantity.js';
 import { evaluate } from './interpreter.js';
+import { BudgetError } from './limits.js';
 import { normalCoverageFactor, summarise, validate, Xoshiro128 } from './monte-carlo.js';
 import type { Rerun } from './rerun.js';
 import type { Scope } from './scope.js';
@@ -147,7 +148,14 @@ function monteCarlo(e: CallExpr, t: Target, env: UncertaintyEnv, samples: number
       const d = x.distribution === 'uniform' ? (2 * rng.uniform() - 1) * x.u * UNIFORM_FACTOR : rng.normal() * x.u;
       changes.set(x.name, moved(x.value, x.value.si + d));
     }
-    const row = rerun.run(changes);
+    let row;
+    try {
+      row = rerun.run(changes);
+    } catch (err) {
+      // The sheet's budget ran out among the samples: said at the call, wherever in a sample it happened.
+      if (err instanceof BudgetError) throw new BudgetError('limit', `${err.message}, in the Monte Carlo samples of propagate(); take fewer samples`, e.span);
+      throw err;
+    }
     const failed = row.errors.get(t.name) ?? [...row.errors.values()][0];
     if (failed) {
       firstFailure ??= `line ${failed.line}: ${failed.message}`;

@@ -90,6 +90,20 @@ describe('propagate(): the Monte Carlo method of JCGM 101:2008', () => {
   });
 });
 
+describe('propagate() and the sheet\'s budget', () => {
+  it('names the call when its samples use up the sheet\'s steps, and the rest of the sheet is listed', async () => {
+    const { SheetPipeline } = await import('../../server/pipeline/index.js');
+    const { DEFAULT_LIMITS } = await import('../../server/evaluate/limits.js');
+    const pipeline = new SheetPipeline({ limits: { ...DEFAULT_LIMITS, maxSteps: 50_000 } });
+    const r = pipeline.run('```basis\n' + [...additive('1'), 'mc = propagate(y, samples: 100000)', 'check y < 100 "small"'].join('\n') + '\n```\n');
+    expect(r.errors[0]).toMatchObject({ line: 7, column: 6, code: 'limit' });
+    expect(r.errors[0]!.message).toBe('the sheet went past 50,000 evaluation steps, in the Monte Carlo samples of propagate(); take fewer samples');
+    // The values before it stand; the check after it is not run.
+    expect(r.values.y!.si).toBe(0);
+    expect(r.checks).toEqual([]);
+  });
+});
+
 describe('the statistics under propagate()', () => {
   it('takes the interval ends the standard names (§7.7.2: the 500th and 19,500th of 20,000)', () => {
     const sorted = Float64Array.from({ length: 20000 }, (_, i) => i + 1);
