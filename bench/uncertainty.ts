@@ -4,10 +4,10 @@
 // engine, beside 20,000 direct calls of the same trade functions with the same
 // sampled inputs (target: under 2 s; aim: within 3× of the direct calls).
 import { performance } from 'node:perf_hooks';
-import { createRegistry, num, si, str, type Args, type CallContext, type Value } from '../dist/server/core/index.js';
 import { SheetPipeline } from '../dist/server/index.js';
 import { DEFAULT_LIMITS } from '../dist/server/evaluate/limits.js';
 import { Xoshiro128 } from '../dist/server/evaluate/monte-carlo.js';
+import { nearWallCalls, nearWallSheet, vanAir } from './near-wall.js';
 import { fmt, summarise, type Summary } from './stats.js';
 
 const SAMPLES = 20_000;
@@ -27,32 +27,10 @@ const uU = 5 / 3.6;
 const L0 = 5.9;
 const uL = 0.059;
 
+/** The plan with the speed and the length uncertain; a new seed each run, so that none is served from the cache. */
 function nearWall(seed: number): string {
-  return [
-    '```basis',
-    'U = 110 km/h ± 5 km/h',
-    'L = 5.9 m ± 1 %',
-    'air_van = air(T: 28 degC)',
-    'wr = first_cell(U, L, air_van, yplus: 1)',
-    'bl = boundary_layer(U, L, air_van)',
-    'stack = layer_stack(first: wr.height, growth: 1.2, total: bl.delta)',
-    'check wr.height > 1 um "a first cell the mesher can make"',
-    'check stack.count <= 40 "a stack of at most 40 layers"',
-    `mc = propagate(stack.total, samples: ${SAMPLES}, seed: ${seed})`,
-    '```',
-    '',
-  ].join('\n');
+  return nearWallSheet('110 km/h ± 5 km/h', '5.9 m ± 1 %', `mc = propagate(stack.total, samples: ${SAMPLES}, seed: ${seed})`);
 }
-
-const registry = createRegistry();
-const ctx: CallContext = {
-  readData() {
-    throw new Error('the uncertainty benchmark reads no data files');
-  },
-  warn() {},
-};
-const call = (name: string, args: Args): Value => registry.get(name)!.compute(args, ctx);
-const field = (v: Value, f: string): Value => (v.kind === 'record' ? v.fields.get(f)!.value : v);
 
 function propagateCost(): Summary {
   // A time budget past the target, so that a slow run is measured rather than stopped.
@@ -68,18 +46,12 @@ function propagateCost(): Summary {
 }
 
 function directCost(): Summary {
-  const air = call('air', { T: si(301.15, 'K'), p: si(101325, 'Pa'), RH: num(0) });
+  const air = vanAir();
   const samples: number[] = [];
   for (let run = 0; run <= RUNS; run++) {
     const rng = new Xoshiro128(run + 2);
     const t0 = performance.now();
-    for (let k = 0; k < SAMPLES; k++) {
-      const U = si(U0 + uU * rng.normal(), 'm/s');
-      const L = si(L0 + uL * rng.normal(), 'm');
-      const wr = call('first_cell', { U, L, fluid: air, yplus: num(1), method: str('schlichting'), placement: str('centroid') });
-      const bl = call('boundary_layer', { U, x: L, fluid: air });
-      call('layer_stack', { first: field(wr, 'height'), growth: num(1.2), total: field(bl, 'delta'), scale: str('linear') });
-    }
+    for (let k = 0; k < SAMPLES; k++) nearWallCalls(U0 + uU * rng.normal(), L0 + uL * rng.normal(), air);
     if (run > 0) samples.push(performance.now() - t0); // the first is the warm-up
   }
   return summarise(samples);

@@ -15,7 +15,7 @@ export class SandboxPool {
   }
 
   run(text: string, opts: RunOptions, lane = 0, onProgress?: (p: RunProgress) => void): Promise<SheetResult> {
-    return this.sandboxes[Math.min(Math.max(0, lane), this.sandboxes.length - 1)]!.run(text, opts, onProgress);
+    return this.sandboxes[Math.min(Math.max(0, lane), this.sandboxes.length - 1)]!.run(text, opts, 0, onProgress);
   }
 
   /** Starts the first lane's child now; the others start with their first sheet. */

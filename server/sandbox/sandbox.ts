@@ -68,8 +68,12 @@ export class Sandbox {
     this.heapMb = options.heapMb ?? DEFAULT_HEAP_MB;
   }
 
-  /** Runs the pipeline over one sheet in the child; `onProgress` hears how far a long statement has come. */
-  run(text: string, opts: RunOptions, onProgress?: (p: RunProgress) => void): Promise<SheetResult> {
+  /**
+   * Runs the pipeline over one sheet in the child; `onProgress` hears how far
+   * a long statement has come. A sandbox is a runner of one lane: `lane` is
+   * there so that it can stand wherever the server's runner does.
+   */
+  run(text: string, opts: RunOptions, _lane?: number, onProgress?: (p: RunProgress) => void): Promise<SheetResult> {
     if (this.closed) return Promise.reject(new Error('the sandbox is closed'));
     return new Promise((resolve, reject) => {
       this.queue.push({ req: { id: this.nextId++, text, opts, limits: this.limits }, tries: 0, resolve, reject, onProgress });

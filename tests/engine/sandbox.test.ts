@@ -24,10 +24,10 @@ describe('sandbox', () => {
     sandboxes.push(sandbox);
     const sheet = (samples: number) => block(['x1 = 0 ± 1', 'x2 = 0 ± 1', 'x3 = 0 ± 1 (uniform)', 'y = x1 * x2 + x3', `mc = propagate(y, samples: ${samples})`]);
     const quick: number[] = [];
-    await sandbox.run(sheet(1000), {}, (p) => quick.push(p.done));
+    await sandbox.run(sheet(1000), {}, 0, (p) => quick.push(p.done));
     expect(quick).toEqual([]);
     const heard: Array<{ line: number; done: number; total: number }> = [];
-    const r = await sandbox.run(sheet(600000), {}, (p) => heard.push(p));
+    const r = await sandbox.run(sheet(600000), {}, 0, (p) => heard.push(p));
     expect(r.errors).toEqual([]);
     expect(heard.length).toBeGreaterThan(0);
     expect(heard.every((p) => p.line === 6 && p.total === 600000 && p.done < 600000)).toBe(true);
