@@ -11,10 +11,10 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { chromium } from 'playwright-core';
-import { createRegistry, num, si, str, type Args, type CallContext, type Value } from '../dist/server/core/index.js';
 import { SheetPipeline } from '../dist/server/index.js';
 import { startServer } from '../dist/server/serve/index.js';
 import { PROBE_SOURCE, TimedSandbox } from './live.js';
+import { nearWallCalls, nearWallSheet, vanAir } from './near-wall.js';
 import { fmt, summarise, type Summary } from './stats.js';
 
 const CHROMIUM = process.env.WAKESHEET_CHROMIUM ?? '/usr/bin/chromium';
@@ -36,33 +36,8 @@ export interface RerunFigures {
 
 /** The near-wall plan with its sweep; `top` moves the last speed a hair so that no run is served from the cache. */
 function nearWall(top: number): string {
-  return [
-    '```basis',
-    'U = 110 km/h',
-    'L = 5.9 m',
-    'air_van = air(T: 28 degC)',
-    'wr = first_cell(U, L, air_van, yplus: 1)',
-    'bl = boundary_layer(U, L, air_van)',
-    'stack = layer_stack(first: wr.height, growth: 1.2, total: bl.delta)',
-    'check wr.height > 1 um "a first cell the mesher can make"',
-    'check stack.count <= 40 "a stack of at most 40 layers"',
-    `plan = sweep(U, linspace(60 km/h, ${top} km/h, ${ROWS}), wr.height, stack.count)`,
-    '```',
-    '',
-  ].join('\n');
+  return nearWallSheet('110 km/h', '5.9 m', `plan = sweep(U, linspace(60 km/h, ${top} km/h, ${ROWS}), wr.height, stack.count)`);
 }
-
-const registry = createRegistry();
-const ctx: CallContext = {
-  readData() {
-    throw new Error('the re-run benchmark reads no data files');
-  },
-  warn() {},
-};
-function call(name: string, args: Args): Value {
-  return registry.get(name)!.compute(args, ctx);
-}
-const field = (v: Value, f: string): Value => (v.kind === 'record' ? v.fields.get(f)!.value : v);
 
 function sweepCost(): Summary {
   const pipeline = new SheetPipeline();
@@ -78,17 +53,11 @@ function sweepCost(): Summary {
 }
 
 function directCost(): Summary {
-  const air = call('air', { T: si(301.15, 'K'), p: si(101325, 'Pa'), RH: num(0) });
-  const L = si(5.9, 'm');
+  const air = vanAir();
   const samples: number[] = [];
   for (let run = 0; run <= RUNS; run++) {
     const t0 = performance.now();
-    for (let k = 0; k < ROWS; k++) {
-      const U = si((60 + ((180 - 60) * k) / (ROWS - 1)) / 3.6, 'm/s');
-      const wr = call('first_cell', { U, L, fluid: air, yplus: num(1), method: str('schlichting'), placement: str('centroid') });
-      const bl = call('boundary_layer', { U, x: L, fluid: air });
-      call('layer_stack', { first: field(wr, 'height'), growth: num(1.2), total: field(bl, 'delta'), scale: str('linear') });
-    }
+    for (let k = 0; k < ROWS; k++) nearWallCalls((60 + ((180 - 60) * k) / (ROWS - 1)) / 3.6, 5.9, air);
     if (run > 0) samples.push(performance.now() - t0); // the first is the warm-up
   }
   return summarise(samples);

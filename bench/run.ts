@@ -10,10 +10,11 @@ import { benchRerun, printRerun } from './rerun.js';
 import { benchLive, printLive } from './live.js';
 import { benchMemory, printMemory } from './memory.js';
 import { benchFairness, printFairness } from './fairness.js';
+import { benchUncertainty, printUncertainty } from './uncertainty.js';
 
 const out = path.join(path.dirname(fileURLToPath(import.meta.url)), 'out');
 // WAKESHEET_BENCH_ONLY picks some of them, as a comma list: live (or demo, or
-// large, its two sheets), start, domain, convergence, rerun, memory, fairness.
+// large, its two sheets), start, domain, convergence, rerun, uncertainty, memory, fairness.
 const only = process.env.WAKESHEET_BENCH_ONLY?.split(',');
 const runs = (name: string, ...aliases: string[]) => !only || only.includes(name) || aliases.some((a) => only.includes(a));
 await mkdir(out, { recursive: true });
@@ -52,4 +53,9 @@ if (runs('rerun')) {
   const rerun = await benchRerun();
   printRerun(rerun);
   await save('rerun', rerun);
+}
+if (runs('uncertainty')) {
+  const uncertainty = benchUncertainty();
+  printUncertainty(uncertainty);
+  await save('uncertainty', uncertainty);
 }

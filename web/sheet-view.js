@@ -88,6 +88,7 @@ export function createSheetView(status, send) {
     receive(message) {
       if (message.type === 'sheet') apply(message);
       else if (message.type === 'busy' && message.sheet === body.dataset.sheet) status.evaluating();
+      else if (message.type === 'progress' && message.sheet === body.dataset.sheet) status.progress(message.line, message.done, message.total);
     },
   };
 }

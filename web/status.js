@@ -57,6 +57,14 @@ export function createStatus(element) {
       if (pending !== null || element?.dataset.state === 'evaluating') return;
       pending = setTimeout(() => show('evaluating', 'evaluating…'), EVALUATING_AFTER_MS);
     },
+    /**
+     * A long statement is on its way (the server tells only past a moment).
+     * @param {number} line @param {number} done @param {number} total
+     */
+    progress(line, done, total) {
+      const share = total > 0 ? Math.floor((100 * done) / total) : 0;
+      show('evaluating', `evaluating… line ${line}: ${done.toLocaleString('en')} of ${total.toLocaleString('en')} (${share} %)`);
+    },
     /** The sheet was deleted: what the page shows is all there is. */
     gone() {
       show('offline', 'this sheet no longer exists on the server');

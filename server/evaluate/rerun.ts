@@ -50,6 +50,8 @@ export function planRerun(
   base: ReadonlyMap<string, Value>,
   env: RerunEnv,
   wanted?: ReadonlySet<string>,
+  /** false: run no checks, and keep only what `wanted` needs (a Monte Carlo sample). */
+  checksToo = true,
 ): Rerun {
   const affected = new Set(changed);
   const downstream = order.filter((s) => {
@@ -62,7 +64,7 @@ export function planRerun(
   if (wanted) {
     // Keep only what a wanted name (or a check) leans on.
     const keep = new Set(wanted);
-    const relevantChecks = checks.filter((c) => uses(c).some((n) => affected.has(n)));
+    const relevantChecks = checksToo ? checks.filter((c) => uses(c).some((n) => affected.has(n))) : [];
     for (const c of relevantChecks) for (const n of uses(c)) keep.add(n);
     for (let i = downstream.length - 1; i >= 0; i--) {
       const s = downstream[i]!;
@@ -70,7 +72,7 @@ export function planRerun(
     }
     needed = downstream.filter((s) => keep.has(s.name));
   }
-  const downChecks = checks.filter((c) => uses(c).some((n) => affected.has(n)));
+  const downChecks = checksToo ? checks.filter((c) => uses(c).some((n) => affected.has(n))) : [];
   const context: CallContext = {
     readData(path) {
       if (!env.readData) throw new SheetError('data-file', 'this sheet cannot read data files here');

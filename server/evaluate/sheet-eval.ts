@@ -14,6 +14,9 @@ import { CONSTANTS, type Scope } from './scope.js';
 import { planRerun } from './rerun.js';
 import { evaluateSweep, isSweep, type SweepEnv } from './sweep.js';
 import { unitNameClash, type DefinedName } from './unit-clash.js';
+import { checkOverRange, type RangeVerdict } from './corners.js';
+import { firstOrder, readUncertainty, type Propagated, type UncertainInput } from './uncertainty.js';
+import { evaluateUncertaintyForm, isUncertaintyForm, type UncertaintyEnv } from './uncertainty-forms.js';
 
 export interface StatementResult {
   readonly stmt: Statement;
@@ -32,6 +35,12 @@ export interface StatementResult {
   readonly uses: readonly string[];
   /** Whether this run computed it afresh (false: reused from the last run). */
   fresh: boolean;
+  /** A result's standard uncertainty from the inputs' (first order), with its budget. */
+  propagated?: Propagated;
+  /** An input's own uncertainty. */
+  uncertain?: UncertainInput;
+  /** A check that depends on uncertain inputs: whether it also holds over their ±2u range. */
+  range?: RangeVerdict;
 }
 
 export interface EvalOptions {
@@ -48,6 +57,8 @@ export interface EvalOptions {
   inline?: readonly InlineExpr[];
   /** Last good values of names that fail now: inline values fall back to them, marked stale. */
   fallback?: ReadonlyMap<string, Value>;
+  /** Told how far a long statement (a Monte Carlo run) has come. */
+  progress?: (line: number, done: number, total: number) => void;
 }
 
 interface CacheEntry {
@@ -67,6 +78,8 @@ export class EvalCache {
   order?: { statements: readonly Statement[]; order: string[]; cycles: Map<string, string[]> };
   /** Inline values of the last run, by line and text. */
   inline = new Map<string, InlineCacheEntry>();
+  /** The last first-order propagation and check ranges, with what they were computed from. */
+  uncertainty?: { inputs: unknown[]; propagated: Map<string, Propagated>; ranges: Map<number, { nominal: boolean; source: string; verdict: RangeVerdict }> };
 }
 
 export interface SheetEvaluation {
@@ -78,6 +91,10 @@ export interface SheetEvaluation {
   freshCount: number;
   /** Inline values by key (line and text). */
   inline: Map<string, InlineResult>;
+  /** Standard uncertainties of the results, by name (first order). */
+  propagated: Map<string, Propagated>;
+  /** The inputs that carry an uncertainty. */
+  uncertain: UncertainInput[];
 }
 
 export function evaluateSheet(statements: readonly Statement[], opts: EvalOptions): SheetEvaluation {
@@ -163,9 +180,9 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       return;
     }
     const inputs: unknown[] = r.uses.map((n) => values.get(n) ?? CONSTANTS.get(n)!);
-    // A sweep also depends on every statement it runs again: the sheet's text stands for them,
-    // with their lines, since what it says of a check names the check's line.
-    if (isSweep(r.stmt.expr)) inputs.push((sheetText ??= statements.map((x) => `${x.line}:${x.source}`).join('\n')));
+    // A sweep (or another late form) also depends on every statement it runs again: the sheet's
+    // text stands for them, with their lines, since what it says of a check names the check's line.
+    if (isLateForm(r.stmt.expr)) inputs.push((sheetText ??= statements.map((x) => `${x.line}:${x.source}`).join('\n')));
     const key = memoOf(r.stmt).key;
     used.add(key);
     const hit = cache.entries.get(key);
@@ -189,7 +206,11 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     const entry: CacheEntry = { inputs, warnings: [], reads: [] };
     const scope = statementScope(opts, budget, values, cache, entry);
     try {
-      entry.value = isSweep(r.stmt.expr) ? evaluateSweep(r.stmt.expr, sweepEnv(scope)) : evaluate(r.stmt.expr, scope);
+      entry.value = isSweep(r.stmt.expr)
+        ? evaluateSweep(r.stmt.expr, sweepEnv(scope))
+        : isUncertaintyForm(r.stmt.expr)
+          ? evaluateUncertaintyForm(r.stmt.expr, uncertaintyEnv(scope, r.stmt.line))
+          : evaluate(r.stmt.expr, scope);
       budget.hold(heldItems(entry.value), r.stmt.expr.span);
     } catch (e) {
       entry.value = undefined;
@@ -211,7 +232,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   const late = new Set<string>();
   for (const name of order) {
     const r = defs.get(name)!;
-    if (isSweep(r.stmt.expr) || r.uses.some((n) => late.has(n))) late.add(name);
+    if (isLateForm(r.stmt.expr) || r.uses.some((n) => late.has(n))) late.add(name);
   }
   const sweepOrder = order.filter((n) => !late.has(n)).map((n) => defs.get(n)!.stmt as Extract<Statement, { type: 'define' }>);
   const checkStatements = statements.filter((x): x is Extract<Statement, { type: 'check' }> => x.type === 'check');
@@ -227,13 +248,35 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     },
   });
 
-  for (const name of [...order.filter((n) => !late.has(n)), ...order.filter((n) => late.has(n))]) {
+  const uncertain: UncertainInput[] = [];
+  const define = (name: string) => {
     const r = defs.get(name)!;
     run(r);
     const stmt = r.stmt as Extract<Statement, { type: 'define' }>;
+    if (stmt.uncertainty && r.value && !r.error) {
+      try {
+        r.uncertain = readUncertainty(stmt, stmt.uncertainty, r.value);
+        uncertain.push(r.uncertain);
+      } catch (e) {
+        r.error = diagnostic(statementError(e, stmt), stmt.line);
+      }
+    }
     if (r.error || r.blockedBy || r.skipped) failed.set(name, r.blockedBy ?? name);
     else values.set(stmt.name, r.value!);
-  }
+  };
+  for (const name of order) if (!late.has(name)) define(name);
+  // First order, once every input and what it feeds has its value; the late forms read it.
+  let uncertaintyBasis: unknown[] | undefined;
+  const plans = new Map<string, ReturnType<typeof planRerun>>();
+  const propagated = propagateSheet();
+  const uncertaintyEnv = (scope: Scope, line: number): UncertaintyEnv => ({
+    scope,
+    propagated,
+    inputs: uncertain,
+    plan: (changed, wanted) => planRerun(sweepOrder, checkStatements, usesOf, changed, values, rerunEnv(), wanted, false),
+    progress: opts.progress ? (done, total) => opts.progress!(line, done, total) : undefined,
+  });
+  for (const name of order) if (late.has(name)) define(name);
   for (const r of results) {
     if (r.stmt.type === 'define') continue;
     run(r);
@@ -246,12 +289,85 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       }
     }
   }
+  const ranges = checkRanges();
+  for (const r of results) {
+    if (r.stmt.type === 'define') {
+      const p = propagated.get(r.stmt.name);
+      if (p && r.value && !r.uncertain) r.propagated = p;
+      if (r.uncertain) r.propagated = { u: r.uncertain.u, budget: [{ input: r.uncertain.name, u: r.uncertain.u, c: 1 }] };
+    } else if (r.stmt.type === 'check' && r.passed !== undefined) {
+      const range = ranges.get(r.stmt.line);
+      if (range) r.range = range;
+    }
+  }
   // Forget statements that left the sheet, so the cache follows the file.
   for (const key of cache.entries.keys()) if (!used.has(key)) cache.entries.delete(key);
   // Only names the sheet still defines have a last good value to fall back to.
   const fallback = (name: string) => (defs.has(name) || broken.has(name) ? opts.fallback?.get(name) : undefined);
   const inline = evaluateInline(opts.inline ?? [], { registry: opts.registry, limits: opts.limits ?? DEFAULT_LIMITS, values, fallback, defined, cache: cache.inline, defaults: cache.defaults });
-  return { results, values, reads: [...reads], freshCount, inline };
+  return { results, values, reads: [...reads], freshCount, inline, propagated, uncertain };
+
+  /** First-order uncertainties of the results, reused while nothing they rest on changed. */
+  function propagateSheet(): Map<string, Propagated> {
+    if (uncertain.length === 0 || stopped) return new Map();
+    uncertaintyBasis = [statements, ...sweepOrder.map((s) => values.get(s.name)), ...uncertain.map((i) => i.u)];
+    if (cache.uncertainty && sameItems(cache.uncertainty.inputs, uncertaintyBasis)) return cache.uncertainty.propagated;
+    const propagated = guarded(() => firstOrder(uncertain, planOne, values), new Map<string, Propagated>());
+    cache.uncertainty = { inputs: uncertaintyBasis, propagated, ranges: new Map() };
+    return propagated;
+  }
+
+  /** Each check that depends on uncertain inputs, at the corners of their ±2u box. */
+  function checkRanges(): Map<number, RangeVerdict> {
+    const ranges = new Map<number, RangeVerdict>();
+    const memo = cache.uncertainty;
+    if (uncertain.length === 0 || stopped || !memo || memo.inputs !== uncertaintyBasis && !sameItems(memo.inputs, uncertaintyBasis!)) return ranges;
+    for (const r of results) {
+      if (r.stmt.type !== 'check' || r.passed === undefined) continue;
+      const c = r.stmt;
+      const key = c.line;
+      const known = memo.ranges.get(key);
+      if (known && known.nominal === r.passed && known.source === c.source) {
+        ranges.set(key, known.verdict);
+        continue;
+      }
+      const mine = uncertain.filter((i) => planOne(i.name).checks.includes(c));
+      if (mine.length === 0) continue;
+      const verdict = guarded(() => {
+        const rerun = planRerun(sweepOrder, [c], usesOf, new Set(mine.map((i) => i.name)), values, rerunEnv(), new Set(usesOf(c)));
+        return checkOverRange(c.line, r.passed!, mine, rerun);
+      }, undefined);
+      if (!verdict) break;
+      memo.ranges.set(key, { nominal: r.passed, source: c.source, verdict });
+      ranges.set(key, verdict);
+    }
+    return ranges;
+  }
+
+  function rerunEnv() {
+    return { registry: opts.registry, budget, defaults: cache.defaults, readData: opts.readData };
+  }
+
+  function planOne(name: string) {
+    let p = plans.get(name);
+    if (!p) plans.set(name, (p = planRerun(sweepOrder, checkStatements, usesOf, new Set([name]), values, rerunEnv())));
+    return p;
+  }
+
+  /** Past the sheet's own budget the rest of it is listed, not evaluated; the values stand without their uncertainties. */
+  function guarded<T>(f: () => T, otherwise: T): T {
+    try {
+      return f();
+    } catch (e) {
+      if (!(e instanceof SheetError) || e.code !== 'limit') throw e;
+      stopped = `the sheet stopped at its limit while propagating uncertainties: ${e.message}`;
+      return otherwise;
+    }
+  }
+}
+
+function isLateForm(e: Statement['expr']): boolean {
+  return isSweep(e) || isUncertaintyForm(e);
 }
 
 /** List items a value holds, nested lists and record fields included. */

@@ -154,7 +154,8 @@ function namesOf(e: Expr): string[] {
   }
 }
 
-function valueWords(v: Value): string {
+/** A value in the words of a label: `U = 110 km/h`. */
+export function valueWords(v: Value): string {
   if (v.kind !== 'quantity') return describeValue(v);
   const label = unitLabel(v.dims);
   const shown = v.unit && !v.unit.offset ? v.si / v.unit.factor : v.si;

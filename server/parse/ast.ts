@@ -38,8 +38,22 @@ export interface Arg {
   readonly span: Span;
 }
 
+/**
+ * The uncertainty of an input, `± 1 m/s`, `± 5 %`, `+- 0.2 m (uniform)`: a
+ * standard uncertainty (normal, the default) or the half-width of a
+ * rectangular distribution (uniform). A `%` alone is relative to the value.
+ */
+export interface UncertaintyNode {
+  /** The number as written (not negative). */
+  readonly value: number;
+  readonly unit?: UnitNode;
+  readonly relative: boolean;
+  readonly distribution: 'normal' | 'uniform';
+  readonly span: Span;
+}
+
 export type Statement =
-  | { readonly type: 'define'; readonly name: string; readonly nameSpan: Span; readonly expr: Expr; readonly description?: string; readonly line: number; readonly source: string }
+  | { readonly type: 'define'; readonly name: string; readonly nameSpan: Span; readonly expr: Expr; readonly uncertainty?: UncertaintyNode; readonly description?: string; readonly line: number; readonly source: string }
   | { readonly type: 'check'; readonly expr: Expr; readonly label?: string; readonly line: number; readonly source: string }
   | { readonly type: 'expr'; readonly expr: Expr; readonly description?: string; readonly line: number; readonly source: string };
 

@@ -16,7 +16,8 @@ export interface Token {
   readonly spaced: boolean;
 }
 
-const OPS = ['<=', '>=', '==', '!=', '+', '-', '*', '/', '^', '(', ')', '[', ']', ',', ':', '.', '=', '<', '>', '%', '·'];
+// `+-` is the ASCII spelling of `±` (an input's uncertainty); both lex as `±`.
+const OPS = ['±', '+-', '<=', '>=', '==', '!=', '+', '-', '*', '/', '^', '(', ')', '[', ']', ',', ':', '.', '=', '<', '>', '%', '·'];
 const NUMBER = /^(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?/;
 const IDENT = /^[A-Za-z_µμ\u0370-\u03ff][A-Za-z0-9_\u0370-\u03ff]*/;
 
@@ -68,7 +69,7 @@ export function lex(text: string, line: number, col0 = 1): Token[] {
     }
     const op = OPS.find((o) => rest.startsWith(o));
     if (op) {
-      out.push({ type: 'op', text: op, span: span(i, i + op.length), spaced });
+      out.push({ type: 'op', text: op === '+-' ? '±' : op, span: span(i, i + op.length), spaced });
       i += op.length;
       continue;
     }

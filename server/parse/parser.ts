@@ -2,7 +2,7 @@
 // or, and, not, comparison (chainable), `to`, + -, * /, unary -, ^, postfix
 // (call, .field), atoms. Units after numbers are parsed in their own namespace.
 import { SheetError } from '../diagnostics.js';
-import type { Arg, CompareOp, Expr, Span, Statement, UnitNode } from './ast.js';
+import type { Arg, CompareOp, Expr, Span, Statement, UncertaintyNode, UnitNode } from './ast.js';
 import { parseUnit } from '../units/unit-expr.js';
 import { lex, type Token } from './lexer.js';
 import { MAX_NESTING, nestedTooDeep } from './limits.js';
@@ -36,6 +36,13 @@ class Cursor implements TokenCursor {
   at(text: string): boolean {
     const t = this.peek();
     return (t.type === 'op' || t.type === 'ident') && t.text === text;
+  }
+  /** The next `count` tokens as a cursor of their own, ending in an end of line; consumed here. */
+  take(count: number): Cursor {
+    const part = this.tokens.slice(this.i, this.i + count);
+    this.i += count;
+    const at = this.peek().span;
+    return new Cursor([...part, { type: 'eof', text: '', span: { line: at.line, col: at.col, end: at.col }, spaced: false }]);
   }
   expect(text: string, what: string): Token {
     if (!this.at(text)) throw unexpected(this.peek(), what);
@@ -76,8 +83,10 @@ export function parseStatement(text: string, line: number, col0 = 1): Statement 
     c.next();
     if (c.peek().type === 'eof') throw unexpected(c.peek(), `a value after "${first.text} ="`);
     const expr = parseExpr(c);
+    const uncertainty = c.at('±') ? parseUncertainty(c, expr) : undefined;
     end(c);
-    return withOptional<Statement>({ type: 'define', name: first.text, nameSpan: first.span, expr, line, source }, 'description', description);
+    const stmt = withOptional<Statement>({ type: 'define', name: first.text, nameSpan: first.span, expr, line, source }, 'description', description);
+    return uncertainty ? { ...stmt, uncertainty } as Statement : stmt;
   }
   const expr = parseExpr(c);
   end(c);
@@ -89,8 +98,46 @@ function withOptional<T extends object>(obj: T, key: string, value: string | und
   return obj;
 }
 
+/** `± 1 m/s`, `± 5 %`, `± 0.2 m (uniform)` after an input's value. */
+function parseUncertainty(c: Cursor, value: Expr): UncertaintyNode {
+  const pm = c.next();
+  if (!isSingleNumber(value)) {
+    throw new SheetError('syntax', `"±" gives the uncertainty of an input: only a name defined by a single number (with its unit) can carry one, as in U = 12 m/s ± 1 m/s`, pm.span);
+  }
+  const n = c.peek();
+  if (n.type !== 'number') throw unexpected(n, 'a number after "±" (the uncertainty, as in ± 1 m/s or ± 5 %)');
+  c.next();
+  // A distribution ends the line, `(uniform)`: the unit before it is read on its own (a unit name before "(" would read as a call).
+  let tail = 0;
+  while (c.peek(tail).type !== 'eof') tail++;
+  const named = tail >= 3 && c.peek(tail - 3).text === '(' && c.peek(tail - 2).type === 'ident' && c.peek(tail - 1).text === ')';
+  const unitCursor = named ? c.take(tail - 3) : c;
+  const unit = unitStarts(unitCursor) ? parseUnitExpr(unitCursor) : undefined;
+  if (named) end(unitCursor);
+  const relative = unit !== undefined && unit.num.length === 1 && unit.num[0]!.name === '%' && unit.den.length === 0;
+  let distribution: 'normal' | 'uniform' = 'normal';
+  let last = unit?.span ?? n.span;
+  if (named) {
+    c.next();
+    const word = c.next();
+    if (word.text !== 'normal' && word.text !== 'uniform') throw new SheetError('syntax', `an uncertainty's distribution is (normal) or (uniform), not (${word.text})`, word.span);
+    distribution = word.text;
+    last = c.next().span;
+  }
+  const node = { value: n.value as number, relative, distribution, span: join(pm.span, last) };
+  return unit ? { ...node, unit } : node;
+}
+
+/** A number with or without its unit, signed or not: what may carry an uncertainty. */
+function isSingleNumber(e: Expr): boolean {
+  return e.type === 'number' || (e.type === 'unary' && e.op === '-' && isSingleNumber(e.arg));
+}
+
 function end(c: Cursor): void {
   const t = c.peek();
+  if (t.type === 'op' && t.text === '±') {
+    throw new SheetError('syntax', '"±" (or "+-") gives the uncertainty of an input, after its value on a line of its own: U = 12 m/s ± 1 m/s; for a sum with a negative number write a + (-b)', t.span);
+  }
   if (t.type !== 'eof') {
     if (t.type === 'ident' && c.last().type === 'number') {
       const power = powerTypo(t.text);

@@ -3,7 +3,7 @@
 // instead. Only inputs can be replaced, and only by a literal; anything else
 // is an error on the line that defines the name, in words.
 import { diagnostic, SheetError, type Diagnostic } from '../diagnostics.js';
-import { isLiteral, parseExpression, type Statement } from '../parse/index.js';
+import { isLiteral, parseStatement, type Statement } from '../parse/index.js';
 import { describeValue, type Registry, type Value } from '../core/index.js';
 import { literalValue } from '../evaluate/index.js';
 import type { Override } from './types.js';
@@ -36,8 +36,14 @@ export function applyOverrides(statements: readonly Statement[], overrides: Read
     let replaced = memo.get(stmt)?.get(text);
     if (!replaced) {
       let expr;
+      let uncertainty;
       try {
-        expr = parseExpression(text, stmt.line);
+        // Read as the sheet would read the line, so that a value may bring its own uncertainty: U=20m/s±1m/s.
+        if (text.includes('#')) throw new SheetError('syntax', 'a value holds no "#"', stmt.nameSpan);
+        const parsed = parseStatement(`${stmt.name} = ${text}`, stmt.line) as Define | null;
+        if (!parsed || parsed.type !== 'define') throw new SheetError('syntax', 'give a value', stmt.nameSpan);
+        expr = parsed.expr;
+        uncertainty = parsed.uncertainty;
       } catch (e) {
         if (!(e instanceof SheetError)) throw e;
         refuse(`--set ${stmt.name}=${text}: ${e.message}`);
@@ -63,7 +69,10 @@ export function applyOverrides(statements: readonly Statement[], overrides: Read
         return;
       }
       // The columns of the given text are not the sheet's: the whole statement stands at the name.
-      replaced = { ...stmt, expr: { ...expr, span: stmt.expr.span }, source: `${stmt.name} = ${text}` } as Define;
+      // An uncertainty on the sheet stays with the new value (a share of it stays a share); one given with the value replaces it.
+      const kept = uncertainty ? { ...uncertainty, span: stmt.expr.span } : stmt.uncertainty;
+      const { uncertainty: _dropped, ...rest } = stmt;
+      replaced = { ...rest, expr: { ...expr, span: stmt.expr.span }, source: `${stmt.name} = ${text}`, ...(kept ? { uncertainty: kept } : {}) } as Define;
       const byText = memo.get(stmt) ?? new Map<string, Define>();
       byText.set(text, replaced);
       memo.set(stmt, byText);

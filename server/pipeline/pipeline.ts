@@ -16,7 +16,7 @@ import { inlineKey, PartRenderer } from '../render/parts.js';
 import { applyOverrides, type OverrideMemo } from './overrides.js';
 import { buildReport } from './report.js';
 import { resolveUses, type UsedRun } from './uses.js';
-import type { Override, RunOptions, SheetReport } from './types.js';
+import type { Override, RunHooks, RunOptions, SheetReport } from './types.js';
 
 export interface PipelineOptions {
   registry?: Registry;
@@ -49,7 +49,7 @@ export class SheetPipeline {
     this.limits = opts.limits ?? DEFAULT_LIMITS;
   }
 
-  run(text: string, opts: RunOptions = {}): SheetReport {
+  run(text: string, opts: RunOptions = {}, hooks: RunHooks = {}): SheetReport {
     const t0 = performance.now();
     // One time budget for the whole run: evaluation stops itself at it, and
     // typesetting shows what it has not reached by then as source text.
@@ -83,7 +83,8 @@ export class SheetPipeline {
     let reader: ((p: string) => string) | undefined;
     const readData = (p: string) => (reader ??= dataReader(root, sheetDir))(p);
     const fallback = this.lastGood;
-    const evaluation = evaluateSheet(statements, { registry: this.registry, limits: this.limits, readData, cache: this.cache, failedNames, imported: uses.imported, inline, fallback });
+    const progress = hooks.progress ? (line: number, done: number, total: number) => hooks.progress!({ line, done, total }) : undefined;
+    const evaluation = evaluateSheet(statements, { registry: this.registry, limits: this.limits, readData, cache: this.cache, failedNames, imported: uses.imported, inline, fallback, ...(progress ? { progress } : {}) });
     this.lastGood = lastGoodValues(evaluation.results, failedNames.keys(), this.lastGood);
     markOverridden(evaluation.results, set.applied);
     const own = parsed.flatMap((x) => (x.type === 'define' ? [x.name] : []));

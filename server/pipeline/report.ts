@@ -5,7 +5,7 @@ import type { InlineExpr, SheetEvaluation } from '../evaluate/index.js';
 import { isLiteral, literalArguments, literalText, type BrokenLine } from '../parse/index.js';
 import { sheetHeaderHtml, summaryHtml, type SummaryItem } from '../render/page.js';
 import type { SheetPart } from '../render/parts.js';
-import { valueJson, type ValueJson } from '../render/value-json.js';
+import { valueJson, withUncertainty, type ValueJson } from '../render/value-json.js';
 import type { ArgumentJson, CheckJson, ErrorJson, InputJson, Override, SheetReport } from './types.js';
 import type { Diagnostic } from '../diagnostics.js';
 
@@ -55,7 +55,8 @@ export function buildReport(input: ReportInput): SheetReport {
     if (r.error) error(r.error.line, r.error.column, r.error.message, r.error.code, r.stmt.line);
     if (r.stmt.type === 'check' && r.passed === undefined) checksNotRun++;
     if (r.stmt.type === 'check' && r.passed !== undefined) {
-      checks.push({ line: r.stmt.line, passed: r.passed, text: r.stmt.label ?? r.stmt.source.replace(/^check\s+/, '') });
+      const check: CheckJson = { line: r.stmt.line, passed: r.passed, text: r.stmt.label ?? r.stmt.source.replace(/^check\s+/, '') };
+      checks.push(r.range ? { ...check, range: { holds: r.range.holds, text: r.range.text } } : check);
       if (!r.passed) problems.push({ line: r.stmt.line, text: `check failed: ${r.stmt.label ?? r.stmt.source}`, kind: 'fail' });
     }
     if (r.stmt.type === 'define' && r.value) {
@@ -79,7 +80,7 @@ export function buildReport(input: ReportInput): SheetReport {
     if (r.stmt.type !== 'define') continue;
     const v = evaluation.values.get(r.stmt.name);
     if (!v) continue;
-    values[r.stmt.name] = withNotes(valueJson(v, input.sig), r.warnings);
+    values[r.stmt.name] = withUncertainty(withNotes(valueJson(v, input.sig), r.warnings), r.propagated);
     const text = isLiteral(r.stmt.expr) ? literalText(r.stmt.expr) : undefined;
     if (text !== undefined) inputsList.push({ name: r.stmt.name, line: r.stmt.line, text, value: values[r.stmt.name]! });
   }

@@ -10,6 +10,8 @@ export interface CheckJson {
   line: number;
   passed: boolean;
   text: string;
+  /** For a check that depends on inputs with an uncertainty: whether it holds over their ±2u range too. */
+  range?: { holds: boolean; text: string };
 }
 
 export interface ErrorJson {
@@ -101,6 +103,19 @@ export interface RunOptions {
   chain?: string[];
   /** false: values, checks and errors only, with no parts (the command line's eval and check). */
   render?: boolean;
+}
+
+/** How far a long statement of a run has come (a Monte Carlo run): told while the run goes on. */
+export interface RunProgress {
+  /** The statement's line. */
+  line: number;
+  done: number;
+  total: number;
+}
+
+/** What a run tells as it goes; functions, so never part of RunOptions (which crosses to the sandbox). */
+export interface RunHooks {
+  progress?: (p: RunProgress) => void;
 }
 
 /** An input replaced for one run. */

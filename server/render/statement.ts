@@ -10,6 +10,7 @@ import { chainHtml, mathHtml } from './katex.js';
 import { exprLatex, valueLatex, type LatexContext } from './latex.js';
 import { symbolLatex } from './symbols.js';
 import { allItemsHtml, dataAttrs, displayText, FOLD_AFTER, valueHtml } from './values.js';
+import { uncertaintyHtml } from './uncertainty.js';
 
 export interface StatementView {
   sig: number;
@@ -125,9 +126,9 @@ export function lastGoodHtml(name: string | undefined, view: StatementView): str
   return `<div class="ws-last-good"><span class="ws-last-good-label">last good value, stale</span> ${shown}</div>`;
 }
 
-function resultLatexOrBlock(name: string, v: Value, view: StatementView): { inline?: string; block?: string } {
+function resultLatexOrBlock(name: string, v: Value, view: StatementView, r?: StatementResult): { inline?: string; block?: string } {
   const tex = v.kind === 'quantity' || v.kind === 'bool' || v.kind === 'string' || v.kind === 'list' ? valueLatex(v, view.sig) : null;
-  if (!tex) return { block: valueHtml(name, v, view.sig) };
+  if (!tex) return { block: valueHtml(name, v, view.sig, r?.propagated?.fields) };
   // A long list is folded in the formula; every item is a click away below it.
   if (v.kind === 'list' && v.items.length > FOLD_AFTER) return { inline: tex, block: allItemsHtml(v, view.sig) };
   return { inline: tex };
@@ -148,7 +149,7 @@ function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'def
     return `${head}><div class="ws-formula">${mathHtml(`${sym} = ${exprLatex(s.expr, symbolicContext(view))}`)}</div>${blockedHtml(r, view)}</div>`;
   }
   const v = r.value!;
-  const { inline, block } = resultLatexOrBlock(s.name, v, view);
+  const { inline, block } = resultLatexOrBlock(s.name, v, view, r);
   const parts: string[] = [sym];
   if (!literal || !inline) parts.push(exprLatex(s.expr, symbolicContext(view)));
   const subst = literal ? null : substituted(s.expr, view);
@@ -157,7 +158,15 @@ function defineHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'def
   const dedup = parts.filter((p, i) => i === 0 || p !== parts[i - 1]);
   // The name and its formula are one piece; substituted values and the result follow.
   const formula = chainHtml(dedup.slice(0, 2).join(' = '), dedup.slice(2));
-  return `${head}><div class="ws-formula">${formula}${descHtml(s.description)}</div>${block ?? ''}${warningsHtml(r)}</div>`;
+  return `${head}><div class="ws-formula">${formula}${uncertaintyOf(r, v, view)}${descHtml(s.description)}</div>${block ?? ''}${warningsHtml(r)}</div>`;
+}
+
+/** "± 0.61 m/s (5.1 %)" beside a number that carries an uncertainty; nothing otherwise. */
+function uncertaintyOf(r: StatementResult, v: Value, view: StatementView): string {
+  const p = r.propagated;
+  if (!p || v.kind !== 'quantity') return '';
+  const distribution = r.uncertain?.distribution;
+  return ` ${uncertaintyHtml(v, { u: p.u, ...(distribution ? { distribution } : {}), ...(p.problem ? { problem: p.problem } : {}) }, view.sig)}`;
 }
 
 function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'check' }> }, view: StatementView): string {
@@ -170,7 +179,8 @@ function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'chec
   if (r.blockedBy || r.skipped) return `<div class="ws-stmt ws-check ws-check-blocked"${attrs({ 'data-line': s.line })}>${formula}${label}${blockedHtml(r)}</div>`;
   const pass = r.passed === true;
   const mark = pass ? '<span class="ws-mark" aria-label="passed">✓ pass</span>' : '<span class="ws-mark" aria-label="failed">✗ fail</span>';
-  return `<div class="ws-stmt ws-check ${pass ? 'pass' : 'fail'}"${attrs({ 'data-line': s.line, 'data-passed': String(pass) })}>${mark}<span class="ws-formula">${formula}</span>${label}${warningsHtml(r)}</div>`;
+  const range = r.range ? `<div class="ws-range ${r.range.holds ? 'holds' : 'fails'}"${attrs({ 'data-holds': String(r.range.holds) })}>over the inputs' range: ${escapeHtml(r.range.text)}</div>` : '';
+  return `<div class="ws-stmt ws-check ${pass ? 'pass' : 'fail'}"${attrs({ 'data-line': s.line, 'data-passed': String(pass), 'data-range-holds': r.range ? String(r.range.holds) : undefined })}>${mark}<span class="ws-formula">${formula}</span>${label}${range}${warningsHtml(r)}</div>`;
 }
 
 function exprHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'expr' }> }, view: StatementView): string {

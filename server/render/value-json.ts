@@ -26,6 +26,27 @@ export interface ValueJson {
   remarks?: string[];
   /** For a name brought in by `use`: the sheet it comes from, as this one names it. */
   from?: string;
+  /** Standard uncertainty in SI, for an input given with `±` and every number that depends on one (first order). */
+  u?: number;
+}
+
+/** Standard uncertainties for a value's JSON: the value's own, and its record fields'. */
+export interface UncertaintyJson {
+  u?: number;
+  fields?: ReadonlyMap<string, { u: number }>;
+}
+
+/** The JSON with `u` added (the cached JSON itself is never changed). */
+export function withUncertainty(json: ValueJson, unc: UncertaintyJson | undefined): ValueJson {
+  if (!unc) return json;
+  const out: ValueJson = { ...json };
+  if (unc.u !== undefined && Number.isFinite(unc.u) && json.si !== null) out.u = unc.u;
+  if (unc.fields && json.fields) {
+    const fields: Record<string, ValueJson> = { ...json.fields };
+    for (const [k, f] of unc.fields) if (fields[k] && fields[k]!.si !== null && Number.isFinite(f.u)) fields[k] = { ...fields[k]!, u: f.u };
+    out.fields = fields;
+  }
+  return out;
 }
 
 /** Lists longer than this leave out their items in JSON (the display still tells). */

@@ -6,16 +6,20 @@ import { mathHtml } from './katex.js';
 import { showQuantity, shownLatex, shownPlain, unitPlain } from './numbers.js';
 import { recordListHtml, tableHtml } from './tables.js';
 import { dataAttrs, displayText } from './value-text.js';
+import { uncertaintyHtml } from './uncertainty.js';
+
+/** Standard uncertainties of a record's fields (SI), shown beside their values (a field the inputs do not move shows none). */
+export type FieldUncertainties = ReadonlyMap<string, { readonly u: number }>;
 
 export { dataAttrs, displayText };
 
 /** A value shown in HTML: quantities in KaTeX, records as tables, figures inline. */
-export function valueHtml(name: string, v: Value, sig: number): string {
+export function valueHtml(name: string, v: Value, sig: number, fieldsU?: FieldUncertainties): string {
   switch (v.kind) {
     case 'quantity':
       return `<span class="ws-value"${dataAttrs(name, v)}>${mathHtml(shownLatex(showQuantity(v, sig)))}</span>`;
     case 'record':
-      return recordHtml(name, v, sig);
+      return recordHtml(name, v, sig, fieldsU);
     case 'figure':
       return `<figure class="ws-figure"${attrs({ 'data-name': name })}>${v.svg}${v.caption ? `<figcaption>${escapeHtml(v.caption)}</figcaption>` : ''}</figure>`;
     case 'table':
@@ -31,7 +35,7 @@ export function valueHtml(name: string, v: Value, sig: number): string {
   }
 }
 
-function recordHtml(name: string, r: RecordValue, sig: number): string {
+function recordHtml(name: string, r: RecordValue, sig: number, fieldsU?: FieldUncertainties): string {
   // Tables are too wide for the value column: they follow the fields table at full width, under their name and note.
   const wide = [...r.fields].filter(([, f]) => f.value.kind === 'table');
   const rows = [...r.fields].filter(([, f]) => f.value.kind !== 'table').map(([field, f]) => {
@@ -41,7 +45,8 @@ function recordHtml(name: string, r: RecordValue, sig: number): string {
     let unit = '';
     if (v.kind === 'quantity') {
       const s = showQuantity(v, sig);
-      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(shownPlain({ ...s, unit: '' }))}</span>`;
+      const fu = fieldsU?.get(field);
+      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(shownPlain({ ...s, unit: '' }))}</span>${fu && fu.u !== 0 ? ` ${uncertaintyHtml(v, fu, sig)}` : ''}`;
       unit = s.unit === '%' ? '%' : escapeHtml(unitPlain(s.unit));
     } else if (v.kind === 'figure' || v.kind === 'record' || v.kind === 'list') {
       value = valueHtml(`${name}.${field}`, v, sig);

@@ -6,7 +6,7 @@
 import { getHeapStatistics } from 'node:v8';
 import type { Limits } from '../evaluate/index.js';
 import { SheetPipeline } from '../pipeline/index.js';
-import { pipelineKey, type ChildReply, type ChildRequest } from './wire.js';
+import { pipelineKey, PROGRESS_AFTER_MS, PROGRESS_EVERY_MS, type ChildProgress, type ChildReply, type ChildRequest } from './wire.js';
 
 /** Pipelines by key, least recently used first. */
 const pipelines = new Map<string, SheetPipeline>();
@@ -44,7 +44,16 @@ process.on('message', (msg: ChildRequest) => {
   try {
     const key = pipelineKey(msg);
     makeRoom(key);
-    const report = pipelineFor(key, msg.limits).run(msg.text, msg.opts);
+    // The channel writes at once when nothing waits before it, so progress leaves while the run goes on.
+    const started = Date.now();
+    let told = 0;
+    const progress = (p: ChildProgress['progress']) => {
+      const now = Date.now();
+      if (now - started < PROGRESS_AFTER_MS || now - told < PROGRESS_EVERY_MS) return;
+      told = now;
+      process.send!({ id: msg.id, progress: p } satisfies ChildProgress);
+    };
+    const report = pipelineFor(key, msg.limits).run(msg.text, msg.opts, { progress });
     const before = sent.get(key) ?? new Map<string, string>();
     const parts = report.parts.map((p) => (before.get(p.key) === p.html ? { key: p.key } : p));
     sent.set(key, new Map(report.parts.map((p) => [p.key, p.html])));

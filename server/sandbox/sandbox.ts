@@ -9,9 +9,9 @@ import type { ChildProcess } from 'node:child_process';
 // Only light modules here: the parent (the command line, the server) does not load the engine.
 import { DEFAULT_LIMITS, type Limits } from '../evaluate/limits.js';
 import { withPage } from '../pipeline/page.js';
-import type { RunOptions, SheetReport, SheetResult } from '../pipeline/types.js';
+import type { RunOptions, RunProgress, SheetReport, SheetResult } from '../pipeline/types.js';
 import { DEFAULT_HEAP_MB, startChild, takeEarly } from './spawn.js';
-import { pipelineKey, type ChildReply, type ChildRequest, type WireReport } from './wire.js';
+import { pipelineKey, type ChildProgress, type ChildReply, type ChildRequest, type WireReport } from './wire.js';
 
 export interface SandboxOptions {
   /** Wall-clock limit per sheet (default 2000 ms). */
@@ -37,6 +37,7 @@ interface Pending {
   tries: number;
   resolve: (r: SheetResult) => void;
   reject: (e: Error) => void;
+  onProgress: ((p: RunProgress) => void) | undefined;
 }
 
 /**
@@ -67,11 +68,15 @@ export class Sandbox {
     this.heapMb = options.heapMb ?? DEFAULT_HEAP_MB;
   }
 
-  /** Runs the pipeline over one sheet in the child. */
-  run(text: string, opts: RunOptions): Promise<SheetResult> {
+  /**
+   * Runs the pipeline over one sheet in the child; `onProgress` hears how far
+   * a long statement has come. A sandbox is a runner of one lane: `lane` is
+   * there so that it can stand wherever the server's runner does.
+   */
+  run(text: string, opts: RunOptions, _lane?: number, onProgress?: (p: RunProgress) => void): Promise<SheetResult> {
     if (this.closed) return Promise.reject(new Error('the sandbox is closed'));
     return new Promise((resolve, reject) => {
-      this.queue.push({ req: { id: this.nextId++, text, opts, limits: this.limits }, tries: 0, resolve, reject });
+      this.queue.push({ req: { id: this.nextId++, text, opts, limits: this.limits }, tries: 0, resolve, reject, onProgress });
       void this.pump();
     });
   }
@@ -92,8 +97,12 @@ export class Sandbox {
       throw new SandboxError('crash', 'the evaluator could not start');
     });
     this.ready.catch(() => {});
-    child.on('message', (m: ChildReply | { ready: true }) => {
+    child.on('message', (m: ChildReply | ChildProgress | { ready: true }) => {
       if ('ready' in m) return;
+      if ('progress' in m) {
+        if (this.busy?.req.id === m.id) this.busy.onProgress?.(m.progress);
+        return;
+      }
       this.finish(m);
     });
     child.on('exit', (code, signal) => {

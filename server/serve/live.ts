@@ -56,6 +56,7 @@ export class LiveHub {
     store.on('sheet', (update) => this.sendUpdate(update));
     store.on('forgotten', (sheet) => this.completeFrames.delete(sheet));
     store.on('busy', (sheet) => this.sendToFollowers(sheet, { type: 'busy', sheet }));
+    store.on('progress', (sheet, p) => this.sendToFollowers(sheet, { type: 'progress', sheet, line: p.line, done: p.done, total: p.total }));
     store.on('index', () => this.scheduleIndex());
     store.isFollowed = (sheet) => this.isFollowed(sheet);
   }

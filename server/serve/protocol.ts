@@ -65,6 +65,16 @@ export interface BusyMessage {
   sheet: string;
 }
 
+/** Server → client: a long statement of the sheet's evaluation (a Monte Carlo run) has come this far. */
+export interface ProgressMessage {
+  type: 'progress';
+  sheet: string;
+  /** The statement's line. */
+  line: number;
+  done: number;
+  total: number;
+}
+
 export type SheetState = 'waiting' | 'evaluating' | 'ready' | 'failed';
 
 /** One row of the index page. */
@@ -90,7 +100,7 @@ export interface IndexMessage {
   rowsHtml: string;
 }
 
-export type ServerMessage = SheetUpdate | BusyMessage | IndexMessage;
+export type ServerMessage = SheetUpdate | BusyMessage | ProgressMessage | IndexMessage;
 
 /** Client → server: send me this sheet (complete now, relative updates afterwards). */
 export interface FollowSheetMessage {

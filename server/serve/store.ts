@@ -6,7 +6,7 @@
 import { EventEmitter } from 'node:events';
 import { readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { typesetProgress, type RunOptions, type SheetReport } from '../pipeline/index.js';
+import { typesetProgress, type RunOptions, type RunProgress, type SheetReport } from '../pipeline/index.js';
 import { recordData, recordPage } from '../pipeline/record.js';
 import { isSheetFile, sheetTooLarge } from '../read/sheet-files.js';
 import { DependencyMap } from './deps.js';
@@ -20,8 +20,8 @@ import type { FileEvent } from './watch.js';
 
 /** What the store needs from the sandbox; tests may pass a stand-in. */
 export interface SheetRunner {
-  /** `lane` picks one of the runner's evaluators (0 … lanes − 1). */
-  run(text: string, opts: RunOptions, lane?: number): Promise<SheetReport>;
+  /** `lane` picks one of the runner's evaluators (0 … lanes − 1); `onProgress` hears how far a long statement has come. */
+  run(text: string, opts: RunOptions, lane?: number, onProgress?: (p: RunProgress) => void): Promise<SheetReport>;
   close(): Promise<void>;
   /** Starts the evaluator ahead of the first sheet, where that helps. */
   warm?(): Promise<void>;
@@ -62,6 +62,8 @@ export interface StoreEvents {
   /** A sheet changed; the update applies to the previous version. */
   sheet: [update: SheetUpdate];
   busy: [sheet: string];
+  /** A long statement of the sheet's evaluation has come this far. */
+  progress: [sheet: string, progress: RunProgress];
   index: [];
   /** A deleted sheet is no longer kept (no page follows it). */
   forgotten: [sheet: string];
@@ -297,7 +299,7 @@ export class SheetStore extends EventEmitter<StoreEvents> {
     this.emit('index');
     let result: SheetReport;
     try {
-      result = await this.runner.run(text, { path: file, root: this.realRoot }, lane);
+      result = await this.runner.run(text, { path: file, root: this.realRoot }, lane, (p) => this.emit('progress', sheet, p));
     } catch (error) {
       record.lastText = text;
       this.fail(record, `Evaluation failed: ${describe(error)}`);

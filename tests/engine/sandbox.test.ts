@@ -19,6 +19,21 @@ describe('sandbox', () => {
     await Promise.all(sandboxes.map((s) => s.close()));
   });
 
+  it('tells how far a long Monte Carlo run has come while it runs, and only a long one', async () => {
+    const sandbox = new Sandbox({ timeoutMs: 30000 });
+    sandboxes.push(sandbox);
+    const sheet = (samples: number) => block(['x1 = 0 ± 1', 'x2 = 0 ± 1', 'x3 = 0 ± 1 (uniform)', 'y = x1 * x2 + x3', `mc = propagate(y, samples: ${samples})`]);
+    const quick: number[] = [];
+    await sandbox.run(sheet(1000), {}, 0, (p) => quick.push(p.done));
+    expect(quick).toEqual([]);
+    const heard: Array<{ line: number; done: number; total: number }> = [];
+    const r = await sandbox.run(sheet(600000), {}, 0, (p) => heard.push(p));
+    expect(r.errors).toEqual([]);
+    expect(heard.length).toBeGreaterThan(0);
+    expect(heard.every((p) => p.line === 6 && p.total === 600000 && p.done < 600000)).toBe(true);
+    expect(heard.map((p) => p.done)).toEqual([...heard.map((p) => p.done)].sort((a, b) => a - b));
+  });
+
   it('stops an endless computation at the time limit, then evaluates the next sheet', async () => {
     const sandbox = new Sandbox({ timeoutMs: 300, limits: { maxSteps: 1e12, maxHeldItems: 1e12 } });
     sandboxes.push(sandbox);

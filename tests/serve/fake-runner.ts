@@ -2,7 +2,7 @@
 // paragraph, `reads: FILE` lines become data-file dependencies, and a line
 // `crash!` makes evaluation fail the way a timeout or a dead child would.
 import path from 'node:path';
-import { emptyReport, type RunOptions, type SheetResult } from '../../server/pipeline/index.js';
+import { emptyReport, type RunOptions, type RunProgress, type SheetResult } from '../../server/pipeline/index.js';
 import type { SheetRunner } from '../../server/serve/store.js';
 
 /** A result with nothing in it but what `fields` says: the shape a real run returns. */
@@ -14,7 +14,7 @@ export class ParagraphRunner implements SheetRunner {
   calls: { text: string; opts: RunOptions }[] = [];
   delayMs = 0;
 
-  async run(text: string, opts: RunOptions): Promise<SheetResult> {
+  async run(text: string, opts: RunOptions, _lane?: number, _onProgress?: (p: RunProgress) => void): Promise<SheetResult> {
     this.calls.push({ text, opts });
     if (this.delayMs) await new Promise((r) => setTimeout(r, this.delayMs));
     if (/^crash!$/m.test(text)) throw new Error('evaluation timed out after 2000 ms');

@@ -86,6 +86,27 @@ describe('SheetStore', () => {
     expect(part!.edits).toMatchObject({ from: frames[0]!.parts[0]!.hash, texts: [[1, '12', '13.5']], attrs: [[0, 'div', 'data-si', '13.5']] });
   });
 
+  it('passes on how far a long evaluation has come, for the sheet being evaluated', async () => {
+    const runner = new ParagraphRunner();
+    const plain = runner.run.bind(runner);
+    runner.run = async (text, opts, _lane, onProgress) => {
+      onProgress?.({ line: 4, done: 2000, total: 20000 });
+      onProgress?.({ line: 4, done: 4000, total: 20000 });
+      return plain(text, opts);
+    };
+    const folder = await makeFolder({ 'mc.md': 'a long one' });
+    const store = new SheetStore(folder.dir, runner);
+    cleanup.push(folder.remove, () => store.close());
+    const heard: Array<[string, number, number]> = [];
+    store.on('progress', (sheet, p) => heard.push([sheet, p.line, p.done]));
+    store.addInitial(['mc.md']);
+    await store.whenEvaluated('mc.md');
+    expect(heard).toEqual([
+      ['mc.md', 4, 2000],
+      ['mc.md', 4, 4000],
+    ]);
+  });
+
   it('does not blank the page for a sheet caught empty in the middle of a save', async () => {
     const { dir, store, frames, write } = await storeWith({ 'a.md': 'one\n\ntwo' });
     await write('a.md', ''); // truncated; the new text lands a moment later
