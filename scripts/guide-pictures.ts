@@ -8,7 +8,8 @@
 import { mkdtemp, mkdir, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { chromium, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
+import { openChromium } from './chromium.js';
 import { startServer } from '../server/serve/index.js';
 
 const OUT = path.resolve('worksheets/guide/pictures');
@@ -30,13 +31,8 @@ const folder = await mkdtemp(path.join(tmpdir(), 'wakesheet-guide-'));
 const file = path.join(folder, 'cabin.md');
 await writeFile(file, GOOD);
 const server = await startServer({ dir: folder, port: 0, host: '127.0.0.1', warn: () => {} });
-const profile = await mkdtemp(path.join(tmpdir(), 'wakesheet-shot-'));
-const context = await chromium.launchPersistentContext(profile, {
-  executablePath: process.env.WAKESHEET_CHROMIUM ?? '/usr/bin/chromium',
-  headless: true,
-  viewport: { width: 760, height: 700 },
-  args: ['--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-});
+const browser = await openChromium({ width: 760, height: 700 });
+const context = browser.context;
 
 /** Saves the sheet and waits until the page shows `expect` in its main part. */
 async function save(page: Page, text: string, expect: string): Promise<void> {
@@ -63,8 +59,7 @@ try {
   await save(page, BROKEN, 'cannot add');
   await shoot(page, 'error-and-stale.png');
 } finally {
-  await context.close();
+  await browser.close();
   await server.close();
-  await rm(profile, { recursive: true, force: true });
   await rm(folder, { recursive: true, force: true });
 }

@@ -9,9 +9,8 @@
 // The default is the README's picture: the near-wall plan at 1280 px, written
 // to docs/live-page.png.
 import path from 'node:path';
-import { mkdtemp, mkdir, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import { chromium } from 'playwright-core';
+import { mkdir } from 'node:fs/promises';
+import { openChromium } from './chromium.js';
 import { startServer } from '../server/serve/index.js';
 
 const args = process.argv.slice(2);
@@ -29,13 +28,8 @@ const width = Number(option('--width', '1280'));
 const height = Number(option('--height', '900'));
 
 const server = await startServer({ dir, port: 0, host: '127.0.0.1', warn: () => {} });
-const profile = await mkdtemp(path.join(tmpdir(), 'wakesheet-shot-'));
-const context = await chromium.launchPersistentContext(profile, {
-  executablePath: process.env.WAKESHEET_CHROMIUM ?? '/usr/bin/chromium',
-  headless: true,
-  viewport: { width, height },
-  args: ['--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-});
+const browser = await openChromium({ width, height });
+const context = browser.context;
 try {
   const page = context.pages()[0] ?? (await context.newPage());
   await page.goto(new URL('sheet/' + sheet.split(path.sep).map(encodeURIComponent).join('/'), server.url).href, { waitUntil: 'networkidle' });
@@ -47,7 +41,6 @@ try {
   else await page.screenshot({ path: out, fullPage: flag('--full') });
   console.log(`wrote ${path.relative(process.cwd(), out)}`);
 } finally {
-  await context.close();
-  await rm(profile, { recursive: true, force: true });
+  await browser.close();
   await server.close();
 }
