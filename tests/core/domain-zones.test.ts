@@ -5,7 +5,10 @@ import { asRecord, call, metres, relErr, siField, textField } from './domain-hel
 
 /**
  * Volume within distance d of a box [0,L]×[0,W]×[0,H], outside it, by the
- * midpoint rule on a grid of spacing h: an outside check on Steiner's formula.
+ * midpoint rule on a grid of spacing h: an outside check on Steiner's formula
+ * (J. Steiner, "Über parallele Flächen", Monatsbericht der Akademie der
+ * Wissenschaften zu Berlin, 1840; the citation from memory). The box volumes
+ * and face areas below are plain solid geometry (common practice).
  * With `ground` only z ≥ 0 counts (the floor cuts the shell).
  */
 function shellByCounting(L: number, W: number, H: number, d: number, ground: boolean, h: number): number {
