@@ -30,6 +30,8 @@ export interface InlineResult {
   error?: Diagnostic;
   /** The value leans on a last good value of a failing statement. */
   stale: boolean;
+  /** Its standard uncertainty (SI, first order) when it depends on inputs with one; NaN when it could not be propagated. */
+  u?: number;
 }
 
 export interface InlineCacheEntry {

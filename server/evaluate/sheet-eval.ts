@@ -15,7 +15,7 @@ import { planRerun } from './rerun.js';
 import { evaluateSweep, isSweep, type SweepEnv } from './sweep.js';
 import { unitNameClash, type DefinedName } from './unit-clash.js';
 import { checkOverRange, type RangeVerdict } from './corners.js';
-import { firstOrder, readUncertainty, type Propagated, type UncertainInput } from './uncertainty.js';
+import { expressionSpread, firstOrder, inputRows, readUncertainty, type InputRows, type CarriedSpread, type Propagated, type UncertainInput } from './uncertainty.js';
 import { evaluateUncertaintyForm, isUncertaintyForm, type UncertaintyEnv } from './uncertainty-forms.js';
 
 export interface StatementResult {
@@ -43,6 +43,16 @@ export interface StatementResult {
   range?: RangeVerdict;
 }
 
+/** A name brought in from another sheet, read-only here; with a spread it is one of this sheet's uncertain inputs. */
+export interface ImportedValue {
+  value: Value;
+  /** The line of the use. */
+  line: number;
+  /** The sheet it comes from, as the use line names it. */
+  from: string;
+  spread?: CarriedSpread;
+}
+
 export interface EvalOptions {
   registry: Registry;
   limits?: Limits;
@@ -52,7 +62,7 @@ export interface EvalOptions {
   /** Names whose definition line could not be parsed, with that line: their users are blocked. */
   failedNames?: ReadonlyMap<string, number>;
   /** Names brought in from other sheets (`use`), read-only, with the line of the use and the sheet they come from. */
-  imported?: ReadonlyMap<string, { value: Value; line: number; from: string }>;
+  imported?: ReadonlyMap<string, ImportedValue>;
   /** Inline `=expr` values of the prose, evaluated after the statements. */
   inline?: readonly InlineExpr[];
   /** Last good values of names that fail now: inline values fall back to them, marked stale. */
@@ -78,6 +88,8 @@ export class EvalCache {
   order?: { statements: readonly Statement[]; order: string[]; cycles: Map<string, string[]> };
   /** Inline values of the last run, by line and text. */
   inline = new Map<string, InlineCacheEntry>();
+  /** Inline values given their uncertainty in the last run, so an unchanged one stays the same object. */
+  inlineSpreads = new Map<string, { base: InlineResult; out: InlineResult }>();
   /** The last first-order propagation and check ranges, with what they were computed from. */
   uncertainty?: { inputs: unknown[]; propagated: Map<string, Propagated>; ranges: Map<number, { nominal: boolean; source: string; verdict: RangeVerdict }> };
 }
@@ -102,7 +114,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   const budget = new Budget(opts.limits ?? DEFAULT_LIMITS);
   const results = statements.map<StatementResult>((stmt) => ({ stmt, warnings: [], uses: usesOf(stmt), fresh: false }));
   const defs = new Map<string, StatementResult>();
-  const imported = opts.imported ?? new Map<string, { value: Value; line: number; from: string }>();
+  const imported = opts.imported ?? new Map<string, ImportedValue>();
   for (const r of results) {
     if (r.stmt.type !== 'define') continue;
     const from = imported.get(r.stmt.name);
@@ -248,7 +260,11 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     },
   });
 
+  // A name brought in with its uncertainty is an input of this sheet too.
   const uncertain: UncertainInput[] = [];
+  for (const [name, { value, line, from, spread }] of imported) {
+    if (spread && value.kind === 'quantity') uncertain.push({ name, line, value, u: spread.u, distribution: spread.distribution, from });
+  }
   const define = (name: string) => {
     const r = defs.get(name)!;
     run(r);
@@ -290,10 +306,12 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     }
   }
   const ranges = checkRanges();
+  const moved = movedByUncertainInputs();
   for (const r of results) {
     if (r.stmt.type === 'define') {
       const p = propagated.get(r.stmt.name);
       if (p && r.value && !r.uncertain) r.propagated = p;
+      if (r.value?.kind === 'list' && moved.has(r.stmt.name)) r.warnings = [...r.warnings, listWithoutSpread(r.stmt.name, moved.get(r.stmt.name)!)];
       if (r.uncertain) r.propagated = { u: r.uncertain.u, budget: [{ input: r.uncertain.name, u: r.uncertain.u, c: 1 }] };
     } else if (r.stmt.type === 'check' && r.passed !== undefined) {
       const range = ranges.get(r.stmt.line);
@@ -305,12 +323,13 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   // Only names the sheet still defines have a last good value to fall back to.
   const fallback = (name: string) => (defs.has(name) || broken.has(name) ? opts.fallback?.get(name) : undefined);
   const inline = evaluateInline(opts.inline ?? [], { registry: opts.registry, limits: opts.limits ?? DEFAULT_LIMITS, values, fallback, defined, cache: cache.inline, defaults: cache.defaults });
+  inlineSpreads(inline);
   return { results, values, reads: [...reads], freshCount, inline, propagated, uncertain };
 
   /** First-order uncertainties of the results, reused while nothing they rest on changed. */
   function propagateSheet(): Map<string, Propagated> {
     if (uncertain.length === 0 || stopped) return new Map();
-    uncertaintyBasis = [statements, ...sweepOrder.map((s) => values.get(s.name)), ...uncertain.map((i) => i.u)];
+    uncertaintyBasis = [statements, ...sweepOrder.map((s) => values.get(s.name)), ...uncertain.flatMap((i) => [i.name, i.value, i.u])];
     if (cache.uncertainty && sameItems(cache.uncertainty.inputs, uncertaintyBasis)) return cache.uncertainty.propagated;
     const propagated = guarded(() => firstOrder(uncertain, planOne, values), new Map<string, Propagated>());
     cache.uncertainty = { inputs: uncertaintyBasis, propagated, ranges: new Map() };
@@ -344,6 +363,34 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     return ranges;
   }
 
+  /** Inline values that depend on uncertain inputs get their u, as the statements do. */
+  function inlineSpreads(inline: Map<string, InlineResult>) {
+    const kept = cache.inlineSpreads;
+    cache.inlineSpreads = new Map();
+    if (uncertain.length === 0 || stopped) return;
+    let rows: InputRows[] | undefined;
+    for (const item of opts.inline ?? []) {
+      const base = inline.get(item.key);
+      if (!item.expr || !base?.value || base.stale || base.value.kind !== 'quantity') continue;
+      const names = namesUsed(item.expr).map((n) => n.name);
+      rows ??= guarded(() => uncertain.map((i) => inputRows(i, planOne(i.name))), []);
+      const u = guarded(() => expressionSpread(item.expr!, names, rows!), undefined);
+      if (u === undefined) continue;
+      const before = kept?.get(item.key);
+      const out = before && before.base === base && Object.is(before.out.u, u) ? before.out : { ...base, u };
+      cache.inlineSpreads.set(item.key, { base, out });
+      inline.set(item.key, out);
+    }
+  }
+
+  /** Every definition downstream of an uncertain input, with the inputs that move it. */
+  function movedByUncertainInputs(): Map<string, string[]> {
+    const out = new Map<string, string[]>();
+    if (uncertain.length === 0 || stopped || !results.some((r) => r.value?.kind === 'list')) return out;
+    for (const i of uncertain) for (const s of planOne(i.name).downstream) out.set(s.name, [...(out.get(s.name) ?? []), i.name]);
+    return out;
+  }
+
   function rerunEnv() {
     return { registry: opts.registry, budget, defaults: cache.defaults, readData: opts.readData };
   }
@@ -364,6 +411,11 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
       return otherwise;
     }
   }
+}
+
+/** A list carries no uncertainty: said beside it, so its items are not read as exact. */
+function listWithoutSpread(name: string, inputs: readonly string[]): string {
+  return `this list depends on ${inputs.length === 1 ? 'an input' : 'inputs'} with an uncertainty (${inputs.join(', ')}), but a list carries none: its items are nominal values; name an item (x = ${name}[1]) to see its uncertainty`;
 }
 
 function isLateForm(e: Statement['expr']): boolean {

@@ -120,7 +120,7 @@ function budgetTable(t: Target, env: UncertaintyEnv): Value {
       const x = byName.get(b.input)!;
       const share = total > 0 ? (b.c * b.u) ** 2 / total ** 2 : 0;
       return [
-        str(b.input),
+        str(x.from ? `${b.input} (from ${x.from})` : b.input),
         likeTarget(x.value, b.u),
         str(x.distribution),
         quantity(b.c, dimsMul(t.value.dims, x.value.dims, -1)),

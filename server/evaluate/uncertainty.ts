@@ -8,10 +8,10 @@
 // in whole steps, a slope that says how far it moves over the range.
 import { SheetError } from '../diagnostics.js';
 import type { Quantity, Value } from '../core/index.js';
-import type { Statement, UncertaintyNode } from '../parse/ast.js';
+import type { Expr, Statement, UncertaintyNode } from '../parse/ast.js';
 import { dimsEqual } from '../units/dims.js';
 import { unitLabel } from '../units/labels.js';
-import type { Rerun } from './rerun.js';
+import type { Rerun, RerunRow } from './rerun.js';
 
 type Define = Extract<Statement, { type: 'define' }>;
 
@@ -23,6 +23,29 @@ export interface UncertainInput {
   /** Standard uncertainty u(x), SI. */
   readonly u: number;
   readonly distribution: 'normal' | 'uniform';
+  /** Set for a name brought in by `use`: the sheet it comes from, as the use line names it. */
+  readonly from?: string;
+}
+
+/**
+ * An uncertainty that comes with a name from another sheet. In the using
+ * sheet the name is an input with this u. That is exact for an input of the
+ * other sheet; for one of its results it holds only while no other name
+ * brought in rests on the same inputs (they would be correlated), which
+ * `sources` lets the use line check.
+ */
+export interface CarriedSpread {
+  readonly u: number;
+  readonly distribution: 'normal' | 'uniform';
+  /** The inputs it rests on, each as the sheet that defines it (absolute path) and its name. */
+  readonly sources: readonly CarriedSource[];
+  /** A result of the other sheet (first order), not one of its inputs. */
+  readonly derived: boolean;
+}
+
+export interface CarriedSource {
+  readonly sheet: string;
+  readonly name: string;
 }
 
 /** What one input gives a result: u(x_i), c_i; the contribution is |c_i u(x_i)|. */
@@ -91,9 +114,7 @@ export function firstOrder(inputs: readonly UncertainInput[], plan: (name: strin
     slopes.set(input.name, new Map([...(slopes.get(input.name) ?? []), [input.name, 1]]));
     if (input.u === 0) continue;
     const rerun = plan(input.name);
-    const x = input.value.si;
-    const up = rerun.run(new Map([[input.name, moved(input.value, x + input.u)]]));
-    const down = rerun.run(new Map([[input.name, moved(input.value, x - input.u)]]));
+    const { up, down } = inputRows(input, rerun);
     for (const s of rerun.downstream) {
       const failed = up.errors.get(s.name) ?? down.errors.get(s.name);
       if (failed) {
@@ -143,4 +164,51 @@ export function propagatedAt(map: ReadonlyMap<string, Propagated>, name: string,
   if (!p || field === undefined) return p;
   const f = p.fields?.get(field);
   return f && p.problem ? { ...f, problem: p.problem } : f;
+}
+
+/** Values of the sheet at x_i + u and x_i − u for one input, kept for whatever else asks (inline values). */
+export interface InputRows {
+  readonly input: UncertainInput;
+  readonly rerun: Rerun;
+  readonly up: RerunRow;
+  readonly down: RerunRow;
+  /** The input and every name downstream of it. */
+  readonly moves: ReadonlySet<string>;
+}
+
+export function inputRows(input: UncertainInput, rerun: Rerun): InputRows {
+  const x = input.value.si;
+  return {
+    input,
+    rerun,
+    up: rerun.run(new Map([[input.name, moved(input.value, x + input.u)]])),
+    down: rerun.run(new Map([[input.name, moved(input.value, x - input.u)]])),
+    moves: new Set([input.name, ...rerun.downstream.map((s) => s.name)]),
+  };
+}
+
+/**
+ * u of an expression that reads `names` (an inline value of the prose), by
+ * the same law as the statements': undefined when no uncertain input moves it,
+ * NaN when it cannot be evaluated at an end of an input's range.
+ */
+export function expressionSpread(e: Expr, names: readonly string[], rows: readonly InputRows[]): number | undefined {
+  let sum = 0;
+  let moves = false;
+  for (const r of rows) {
+    if (r.input.u === 0 || !names.some((n) => r.moves.has(n))) continue;
+    moves = true;
+    let a: Value;
+    let b: Value;
+    try {
+      a = r.rerun.read(e, r.up);
+      b = r.rerun.read(e, r.down);
+    } catch (err) {
+      if (err instanceof SheetError && err.code !== 'limit') return NaN;
+      throw err;
+    }
+    if (a.kind !== 'quantity' || b.kind !== 'quantity') return NaN;
+    sum += ((a.si - b.si) / 2) ** 2;
+  }
+  return moves ? Math.sqrt(sum) : undefined;
 }

@@ -16,6 +16,7 @@ import { inlineKey, PartRenderer } from '../render/parts.js';
 import { applyOverrides, type OverrideMemo } from './overrides.js';
 import { buildReport } from './report.js';
 import { resolveUses, type UsedRun } from './uses.js';
+import { carriedOf, NOTHING_CARRIED } from './carried.js';
 import type { Override, RunHooks, RunOptions, SheetReport } from './types.js';
 
 export interface PipelineOptions {
@@ -42,7 +43,7 @@ export class SheetPipeline {
   private readonly usedPipelines = new Map<string, SheetPipeline>();
   private readonly overrideMemo: OverrideMemo = new WeakMap();
   /** What the last run defined, for a sheet that uses this one. */
-  private lastRun: Omit<UsedRun, 'report'> = { values: new Map(), failed: new Set(), defined: new Set(), origins: new Map() };
+  private lastRun: Omit<UsedRun, 'report'> = { values: new Map(), failed: new Set(), defined: new Set(), origins: new Map(), carried: NOTHING_CARRIED };
 
   constructor(opts: PipelineOptions = {}) {
     this.registry = opts.registry ?? sharedRegistry();
@@ -90,7 +91,7 @@ export class SheetPipeline {
     const own = parsed.flatMap((x) => (x.type === 'define' ? [x.name] : []));
     const origins = new Map(uses.origins);
     for (const name of own) origins.set(name, path ?? '');
-    this.lastRun = { values: evaluation.values, failed: new Set([...failedNames.keys(), ...failedDefinitions(evaluation.results)]), defined: new Set([...uses.defined, ...own]), origins };
+    this.lastRun = { values: evaluation.values, failed: new Set([...failedNames.keys(), ...failedDefinitions(evaluation.results)]), defined: new Set([...uses.defined, ...own]), origins, carried: carriedOf(evaluation, path ?? '', uses.imported, uses.uncarried) };
     // Only the sheet run first knows every sheet below it: it says which names to set are nowhere.
     const overrideErrors = [...set.errors, ...(opts.chain || opts.overridesElsewhere ? [] : unknownOverrides(opts.overrides, this.lastRun.defined))];
 

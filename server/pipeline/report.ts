@@ -30,7 +30,7 @@ export interface ReportInput {
   /** The sheets it uses, with their texts. */
   usedSheets: Array<{ path: string; text: string }>;
   /** Values brought in from them, listed with the sheet's own values. */
-  imported: ReadonlyMap<string, { value: Value; from: string }>;
+  imported: ReadonlyMap<string, { value: Value; from: string; spread?: { u: number } }>;
   overrides: Override[];
   overridesMatched: string[];
   elapsedMs: number;
@@ -71,7 +71,7 @@ export function buildReport(input: ReportInput): SheetReport {
   errors.sort((a, b) => a.line - b.line || a.column - b.column);
   problems.sort((a, b) => a.line - b.line);
   const values: Record<string, ValueJson> = {};
-  for (const [name, { value, from }] of input.imported) values[name] = { ...valueJson(value, input.sig), from };
+  for (const [name, { value, from, spread }] of input.imported) values[name] = { ...withUncertainty(valueJson(value, input.sig), spread), from };
   const inputsList: InputJson[] = [];
   const args: ArgumentJson[] = [];
   for (const r of evaluation.results) {

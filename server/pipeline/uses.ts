@@ -5,11 +5,13 @@
 import { readFileSync, statSync } from 'node:fs';
 import { relative } from 'node:path';
 import type { Value } from '../core/index.js';
+import type { CarriedSpread, ImportedValue } from '../evaluate/index.js';
 import { diagnostic, SheetError, type Diagnostic, type ErrorCode } from '../diagnostics.js';
 import type { UseLine } from '../parse/index.js';
 import { dataFileLocator } from '../read/data-files.js';
 import { isSheetFile, sheetTooLarge } from '../read/sheet-files.js';
 import type { UseView } from '../render/use.js';
+import { sharedSource, type Carried } from './carried.js';
 import type { Override, RunOptions, SheetReport } from './types.js';
 
 /** What the pipeline of a used sheet hands back besides its report. */
@@ -23,6 +25,8 @@ export interface UsedRun {
   defined: ReadonlySet<string>;
   /** The sheet (absolute path) each of its names is defined in. */
   origins: ReadonlyMap<string, string>;
+  /** The uncertainties its names carry, and the names whose uncertainty cannot come along. */
+  carried: Carried;
 }
 
 export interface UseEnv {
@@ -35,7 +39,9 @@ export interface UseEnv {
 }
 
 export interface UsesOutcome {
-  imported: Map<string, { value: Value; line: number; from: string }>;
+  imported: Map<string, ImportedValue>;
+  /** Names brought in whose uncertainty could not come along, with why (said on their use line too). */
+  uncarried: Map<string, string>;
   /** The sheet (absolute path) each name brought in is defined in. */
   origins: Map<string, string>;
   /** Every name the used sheets define, brought in or not (for --set). */
@@ -53,11 +59,11 @@ export interface UsesOutcome {
 }
 
 export function resolveUses(lines: readonly UseLine[], env: UseEnv): UsesOutcome {
-  const out: UsesOutcome = { imported: new Map(), origins: new Map(), defined: new Set(), failedNames: new Map(), views: new Map(), errors: [], reads: [], sources: [], overrides: [] };
+  const out: UsesOutcome = { imported: new Map(), uncarried: new Map(), origins: new Map(), defined: new Set(), failedNames: new Map(), views: new Map(), errors: [], reads: [], sources: [], overrides: [] };
   const locate = dataFileLocator(env.root, env.sheetDir);
   const rel = (abs: string) => relative(env.root, abs).split('\\').join('/');
   for (const line of lines) {
-    const view: UseView & { names: Array<{ name: string; value?: Value }> } = { path: line.path, names: [], source: line.source };
+    const view: UseView & { names: Array<{ name: string; value?: Value; u?: number }>; notes: string[] } = { path: line.path, names: [], source: line.source, notes: [] };
     out.views.set(line.line, view);
     const fail = (e: SheetError) => {
       const d = diagnostic(e, line.line);
@@ -101,11 +107,24 @@ export function resolveUses(lines: readonly UseLine[], env: UseEnv): UsesOutcome
           fail(new SheetError('redefined', `\`${name}\` is defined in two sheets, ${rel(earlier)} and ${rel(origin)} (brought in on line ${first} and here); bring it in from one`, span));
           continue;
         }
-        out.origins.set(name, origin);
         const value = used.values.get(name);
-        if (value) out.imported.set(name, { value, line: line.line, from: line.path });
+        const spread = used.carried.spreads.get(name);
+        const correlated = spread && correlatedWith(out.imported, name, spread);
+        if (correlated) {
+          fail(new SheetError('bad-argument', `\`${name}\` and \`${correlated.other}\` (line ${correlated.line}) both rest on the uncertain \`${correlated.source}\` of ${rel(correlated.sheet)}, so their uncertainties are correlated, which a use cannot carry; bring in \`${correlated.source}\` and compute \`${name}\` on this sheet`, span));
+          out.origins.set(name, origin);
+          out.failedNames.set(name, line.line);
+          continue;
+        }
+        out.origins.set(name, origin);
+        if (value) out.imported.set(name, { value, line: line.line, from: line.path, ...(spread ? { spread } : {}) });
         else out.failedNames.set(name, line.line);
-        view.names.push(value ? { name, value } : { name });
+        const why = used.carried.uncarried.get(name);
+        if (value && why) {
+          out.uncarried.set(name, why);
+          view.notes.push(`\`${name}\` depends on inputs with an uncertainty in ${line.path}, and shows here at its nominal value only: ${why}. Bring in those inputs and compute \`${name}\` on this sheet to carry it.`);
+        }
+        view.names.push(value ? { name, value, ...(spread ? { u: spread.u } : {}) } : { name });
       }
       const errs = used.report.errors;
       if (errs.length && !view.error) {
@@ -117,4 +136,14 @@ export function resolveUses(lines: readonly UseLine[], env: UseEnv): UsesOutcome
     }
   }
   return out;
+}
+
+/** The first name already brought in whose uncertainty is correlated with this one's. */
+function correlatedWith(imported: ReadonlyMap<string, ImportedValue>, name: string, spread: CarriedSpread) {
+  for (const [other, entry] of imported) {
+    if (other === name || !entry.spread) continue;
+    const shared = sharedSource(spread, entry.spread);
+    if (shared) return { other, line: entry.line, source: shared.name, sheet: shared.sheet };
+  }
+  return undefined;
 }

@@ -26,3 +26,8 @@ export function compactHtml(html: string): string {
   // was built from pieces that were); the round trip gives one flat one-byte string.
   return Buffer.from(referenced, 'latin1').toString('latin1');
 }
+
+/** A list of notes as the page shows them under a value: warnings (ws-warnings) or remarks (ws-remarks). */
+export function noteList(cls: 'ws-warnings' | 'ws-remarks', items: readonly string[] | undefined): string {
+  return items?.length ? `<ul class="${cls}">${items.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
+}

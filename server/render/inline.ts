@@ -1,6 +1,7 @@
 // An inline `=expr` value as it sits in prose: the value, a record or figure
 // as a block, the last good value marked stale, or the error in words.
 import type { InlineResult } from '../evaluate/index.js';
+import { uncertaintyHtml } from './uncertainty.js';
 import { escapeHtml } from './html.js';
 import { displayKey } from './numbers.js';
 import { dataAttrs, displayText, valueHtml } from './values.js';
@@ -28,5 +29,6 @@ function build(text: string, r: InlineResult, sig: number): string {
     return `<span class="ws-inline ws-stale-value" title="the last good value: not current while a statement it depends on fails">${escapeHtml(displayText(v, sig))} <span class="ws-stale-tag">stale</span></span>`;
   }
   if (v.kind === 'record' || v.kind === 'figure' || v.kind === 'table') return valueHtml(text, v, sig);
-  return `<span class="ws-inline"${dataAttrs(text, v)}>${escapeHtml(displayText(v, sig))}</span>`;
+  const spread = r.u !== undefined && v.kind === 'quantity' ? ` ${uncertaintyHtml(v, { u: r.u, ...(Number.isNaN(r.u) ? { problem: 'cannot be propagated: the value fails at an end of an input’s range' } : {}) }, sig)}` : '';
+  return `<span class="ws-inline"${dataAttrs(text, v)}>${escapeHtml(displayText(v, sig))}${spread}</span>`;
 }

@@ -5,7 +5,7 @@ import { isLiteral } from '../parse/literals.js';
 import { isSweep } from '../evaluate/sweep.js';
 import type { Value } from '../core/index.js';
 import type { StatementResult } from '../evaluate/sheet-eval.js';
-import { attrs, escapeHtml } from './html.js';
+import { attrs, escapeHtml, noteList } from './html.js';
 import { chainHtml, mathHtml } from './katex.js';
 import { exprLatex, valueLatex, type LatexContext } from './latex.js';
 import { symbolLatex } from './symbols.js';
@@ -80,8 +80,7 @@ function substituted(e: Expr, view: StatementView): string | null {
 }
 
 function warningsHtml(r: StatementResult): string {
-  if (!r.warnings.length) return '';
-  return `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>`;
+  return noteList('ws-warnings', r.warnings);
 }
 
 function descHtml(d: string | undefined): string {

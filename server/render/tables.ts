@@ -3,7 +3,7 @@
 // Every column of quantities is shown in one unit, named in its header.
 import type { ListValue, Quantity, RecordValue, TableValue, Value } from '../core/index.js';
 import { parseUnit } from '../units/quantity.js';
-import { attrs, escapeHtml } from './html.js';
+import { attrs, escapeHtml, noteList } from './html.js';
 import { mathHtml } from './katex.js';
 import { formatNumber, showQuantity, unitPlain } from './numbers.js';
 import { symbolLatex } from './symbols.js';
@@ -70,9 +70,8 @@ function gridHtml(name: string, columns: readonly Column[], rows: readonly (read
 export function tableHtml(name: string, t: TableValue, sig: number): string {
   const grid = gridHtml(name, t.columns.map((label) => ({ label })), t.rows, sig, (i) => `${name}[${i + 1}]`, (i, c) => `${name}[${i + 1}].${t.columns[c]}`);
   if (!t.warnings?.length && !t.remarks?.length && !t.figures?.length) return grid;
-  const notes = (cls: string, items: readonly string[] | undefined) => (items?.length ? `<ul class="${cls}">${items.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '');
   const figures = (t.figures ?? []).map((f, i) => `<figure class="ws-figure"${attrs({ 'data-name': `${name}.figure${i + 1}` })}>${f.svg}${f.caption ? `<figcaption>${escapeHtml(f.caption)}</figcaption>` : ''}</figure>`).join('');
-  return `<div class="ws-record ws-sweep"${attrs({ 'data-name': name })}>${grid}${notes('ws-warnings', t.warnings)}${figures}${notes('ws-remarks', t.remarks)}</div>`;
+  return `<div class="ws-record ws-sweep"${attrs({ 'data-name': name })}>${grid}${noteList('ws-warnings', t.warnings)}${figures}${noteList('ws-remarks', t.remarks)}</div>`;
 }
 
 /** Records in a list, in the order of the first record's fields (later fields appended). */
@@ -112,8 +111,7 @@ export function recordListHtml(name: string, list: ListValue, sig: number): stri
   const warnings = distinct(records.map((r) => r.warnings), list, sig);
   const remarks = distinct(records.map((r) => r.remarks), list, sig);
   if (records.some((r) => r.figure)) remarks.push(`Each row has a figure of its own: pick a row to see it, e.g. ${name}[1]${list.sweep?.length ? ` or ${name}[${list.sweep[0]!.name}: ${displayText(list.sweep[0]!.values[0]!, sig)}]` : ''}.`);
-  const list_ = (cls: string, items: string[]) => (items.length ? `<ul class="${cls}">${items.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '');
-  return `<div class="ws-record ws-sweep"${dataAttrs(name, list)}${attrs({ 'data-tag': records[0]?.tag })}>${table}${list_('ws-warnings', warnings)}${list_('ws-remarks', remarks)}</div>`;
+  return `<div class="ws-record ws-sweep"${dataAttrs(name, list)}${attrs({ 'data-tag': records[0]?.tag })}>${table}${noteList('ws-warnings', warnings)}${noteList('ws-remarks', remarks)}</div>`;
 }
 
 function distinct(perRow: readonly (readonly string[])[], list: ListValue, sig: number): string[] {

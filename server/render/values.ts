@@ -1,7 +1,7 @@
 // A value as HTML: quantities in KaTeX, records as tables of fields, lists of
 // records and tables as tables, figures inline.
 import type { RecordValue, Value } from '../core/index.js';
-import { attrs, escapeHtml } from './html.js';
+import { attrs, escapeHtml, noteList } from './html.js';
 import { mathHtml } from './katex.js';
 import { showQuantity, shownLatex, shownPlain, unitPlain } from './numbers.js';
 import { recordListHtml, tableHtml } from './tables.js';
@@ -55,8 +55,8 @@ function recordHtml(name: string, r: RecordValue, sig: number, fieldsU?: FieldUn
     }
     return `<tr><td class="ws-field">${label}</td><td class="ws-num">${value}</td><td class="ws-unit">${unit}</td><td class="ws-note">${escapeHtml(f.note ?? '')}</td></tr>`;
   });
-  const warnings = r.warnings.length ? `<ul class="ws-warnings">${r.warnings.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
-  const remarks = r.remarks.length ? `<ul class="ws-remarks">${r.remarks.map((w) => `<li>${escapeHtml(w)}</li>`).join('')}</ul>` : '';
+  const warnings = noteList('ws-warnings', r.warnings);
+  const remarks = noteList('ws-remarks', r.remarks);
   const fig = r.figure ? valueHtml(`${name}.figure`, r.figure, sig) : '';
   const tables = wide.map(([field, f]) => `<div class="ws-subtable"><div class="ws-subtable-head"><span class="ws-field">${fieldLabel(field, f.symbol)}</span> <span class="ws-note">${escapeHtml(f.note ?? '')}</span></div>${valueHtml(`${name}.${field}`, f.value, sig)}</div>`);
   return `<div class="ws-record"${attrs({ 'data-name': name, 'data-tag': r.tag })}><table class="ws-fields"><thead><tr><th>field</th><th>value</th><th>unit</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table>${tables.join('')}${warnings}${fig}${remarks}</div>`;

@@ -4,6 +4,7 @@ import { rename, rm, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, expect, it } from 'vitest';
+import { SandboxPool } from '../../server/sandbox/pool.js';
 import { startServer, type RunningServer, type ServeOptions } from '../../server/serve/index.js';
 import { makeFolder, put } from '../serve/helpers.js';
 import { describeInBrowser, launchBrowser, REBIND_HOST, type Browser } from './launch.js';
@@ -95,6 +96,28 @@ describeInBrowser('live sheet page', () => {
     await waitForValue(page, 'U_inf', 14);
     await waitForStatus(page, 'live');
   });
+
+  it('shows how far a long Monte Carlo run has come while it runs, then its result', async () => {
+    const plan = (samples: number) =>
+      `# Plan\n\n\`\`\`basis\nU = 30 m/s ± 1.5 m/s\nfc = first_cell(U, 4 m, air(T: 20 degC), yplus: 1)\nh = fc.height\nmc = propagate(h, samples: ${samples}, seed: 2)\n\`\`\`\n`;
+    // A time budget long enough for the run on a busy machine; the run itself takes about a second.
+    const runner = new SandboxPool(1, { timeoutMs: 60000 });
+    cleanup.push(() => runner.close());
+    const { dir, server } = await serveFolder({ 'plan.md': plan(100) }, { runner });
+    const page = await openPage(server.url + 'sheet/plan.md');
+    await waitForStatus(page, 'live');
+    await page.evaluate(() => {
+      const w = window as unknown as { said: string[] };
+      w.said = [];
+      const status = document.querySelector('.live-status') as HTMLElement;
+      new MutationObserver(() => w.said.push(status.textContent ?? '')).observe(status, { childList: true, subtree: true, characterData: true });
+    });
+    // Enough samples to take well past the moment after which the server tells its progress.
+    await writeFile(path.join(dir, 'plan.md'), plan(100000));
+    await page.waitForFunction(() => (window as unknown as { said: string[] }).said.some((t) => /line 7: [\d,]+ of 100,000 \(\d+ %\)/.test(t)), undefined, { timeout: 30000 });
+    await page.waitForFunction(() => /100,000 samples/.test(document.querySelector('[data-name="mc"]')?.textContent ?? ''), undefined, { timeout: 60000 });
+    await waitForStatus(page, 'live');
+  }, 90000);
 
   it('keeps the scroll position and opened details across an update', async () => {
     const filler = Array.from({ length: 60 }, (_, i) => `Paragraph ${i} about the mesh, the far field and the wake.`).join('\n\n');

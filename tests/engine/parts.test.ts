@@ -12,9 +12,9 @@ const text = readFileSync('worksheets/van-near-wall.md', 'utf8');
 describe('resplitParts', () => {
   const lines = text.split('\n');
   const edits: Array<[string, (ls: string[]) => string[]]> = [
-    ['a line inside a block', (ls) => ls.map((l) => l.replace(/^U = 110 km\/h/, 'U = 120 km/h'))],
+    ['a line inside a block', (ls) => ls.map((l) => l.replace(/^U = U_design/, 'U = 120 km/h'))],
     ['a line of prose', (ls) => ls.map((l, i) => (i === lines.findIndex((x) => x.startsWith('This sheet')) ? l + ' Extra words.' : l))],
-    ['a new fence-like line inside a block', (ls) => ls.map((l) => l.replace(/^U = 110 km\/h.*/, '```'))],
+    ['a new fence-like line inside a block', (ls) => ls.map((l) => l.replace(/^U = U_design.*/, '```'))],
     ['a line added', (ls) => [...ls.slice(0, 12), 'New paragraph.', ...ls.slice(12)]],
     ['a block opened into prose', (ls) => ls.map((l, i) => (i === lines.findIndex((x) => x.startsWith('This sheet')) ? '```basis' : l))],
   ];
