@@ -9,7 +9,9 @@ export const CHECK_HELP = `wakesheet check [DIR | SHEET.md] [--set NAME=VALUE �
 
 Evaluates every sheet under DIR (default: the current folder), or one sheet.
 Prints one line per failed check or error as file:line: message, and exits 1
-if there is any. --set U_inf=20m/s (repeatable) replaces an input for this run
+if there is any. A check that holds at nominal but not over the ±2u range of
+the uncertain inputs it depends on is listed too, as a note: it does not
+change the exit code. --set U_inf=20m/s (repeatable) replaces an input for this run
 in every sheet that defines it; a name no sheet defines is an error.`;
 
 export async function checkCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
@@ -25,6 +27,7 @@ export async function checkCommand(argv: string[], sandbox = new Sandbox()): Pro
   const files = one ? [target] : findSheets(dir);
   let bad = 0;
   let sheets = 0;
+  let overRange = 0;
   const taken = new Set<string>();
   try {
     for (const file of files) {
@@ -41,6 +44,10 @@ export async function checkCommand(argv: string[], sandbox = new Sandbox()): Pro
         bad++;
         process.stdout.write(`${rel}:${c.line}: ${colour(33, 'check failed')} ${c.text}\n`);
       }
+      for (const c of r.checks.filter((x) => x.passed && x.range && !x.range.holds)) {
+        overRange++;
+        process.stdout.write(`${rel}:${c.line}: ${colour(36, 'note')} ${c.text}: ${c.range!.text}\n`);
+      }
     }
   } finally {
     await sandbox.close();
@@ -52,6 +59,7 @@ export async function checkCommand(argv: string[], sandbox = new Sandbox()): Pro
     }
   }
   if (overrides) process.stdout.write(`with ${Object.entries(overrides).map(([k, v]) => `${k} = ${v}`).join(', ')} set for this run\n`);
-  process.stdout.write(`${countText(sheets, 'sheet')}, ${bad === 0 ? colour(32, 'all checks pass') : colour(31, countText(bad, 'problem'))}\n`);
+  const range = overRange ? `; ${countText(overRange, 'check')} ${overRange === 1 ? 'holds' : 'hold'} at nominal only, not over the inputs' ±2u range` : '';
+  process.stdout.write(`${countText(sheets, 'sheet')}, ${bad === 0 ? colour(32, 'all checks pass') : colour(31, countText(bad, 'problem'))}${range}\n`);
   return bad ? 1 : 0;
 }

@@ -136,4 +136,13 @@ describe('wakesheet CLI', () => {
     const one = await run(['check', join(dir, 'good.md'), '--set', 'U=25 m/s']);
     expect([one.code, one.stdout]).toEqual([0, expect.stringContaining('1 sheet, all checks pass')]);
   });
+
+  it('check notes a check that holds at nominal but not over the ±2u range, without failing', async () => {
+    writeFileSync(join(dir, 'spread.md'), '```basis\nU = 30 m/s ± 1.5 m/s\ncheck U < 32 m/s "below the tunnel limit"\n```\n');
+    const r = await run(['check', join(dir, 'spread.md')]);
+    // 30 + 2 × 1.5 = 33 m/s at the upper end of the range, past 32 m/s.
+    expect(r.code).toBe(0);
+    expect(r.stdout).toContain('spread.md:3: note below the tunnel limit: holds at nominal, fails at U = 33 m/s (1 of the 2 ends of the ±2u range)');
+    expect(r.stdout).toContain("1 sheet, all checks pass; 1 check holds at nominal only, not over the inputs' ±2u range");
+  });
 });
