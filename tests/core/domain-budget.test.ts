@@ -268,7 +268,7 @@ describe('cell budget: edges of the octree rules', () => {
       }),
     );
     expect(b.warnings).toEqual([
-      'the zones wake, roof (level 3) is 3 levels finer than the level-0 region around it; octree meshes keep neighbouring cells within one level, so the grading between them adds cells this budget does not count (common practice: at most 2 levels between nested regions); add an intermediate zone.',
+      'the zones wake, roof (level 3) are 3 levels finer than the level-0 region around it; octree meshes keep neighbouring cells within one level, so the grading between them adds cells this budget does not count (common practice: at most 2 levels between nested regions); add an intermediate zone.',
     ]);
   });
 

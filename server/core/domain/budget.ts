@@ -137,7 +137,7 @@ export function cellBudget(input: BudgetInput): Budget {
   for (let k = 1; k < levels.length; k++) {
     if (levels[k]! - levels[k - 1]! > MAX_LEVEL_JUMP) {
       const names = input.zones.filter((z) => z.level === levels[k]).map((z) => z.label);
-      warnings.push(jumpWarning(levels[k - 1]!, levels[k]!, `${names.length > 1 ? 'the zones' : 'the zone'} ${names.join(', ')} (level ${levels[k]})`));
+      warnings.push(jumpWarning(levels[k - 1]!, levels[k]!, `${names.length > 1 ? 'the zones' : 'the zone'} ${names.join(', ')} (level ${levels[k]})`, names.length > 1));
     }
   }
 
@@ -237,9 +237,9 @@ function adjacentZones(zones: readonly BudgetZone[]): number[] {
   return pool.filter(([z]) => z.level === finest).map(([, i]) => i);
 }
 
-function jumpWarning(from: number, to: number, what: string): string {
+function jumpWarning(from: number, to: number, what: string, plural = false): string {
   return (
-    `${what} is ${to - from} levels finer than the level-${from} region around it; octree meshes keep neighbouring cells within one level, ` +
+    `${what} ${plural ? 'are' : 'is'} ${to - from} levels finer than the level-${from} region around it; octree meshes keep neighbouring cells within one level, ` +
     `so the grading between them adds cells this budget does not count (common practice: at most ${MAX_LEVEL_JUMP} levels between nested regions); add an intermediate zone.`
   );
 }
