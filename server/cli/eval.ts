@@ -48,7 +48,7 @@ function valueLines(name: string, v: ValueJson, indent: string, out: string[]): 
     return;
   }
   if (!v.fields) {
-    out.push(`${indent}${name} = ${v.display}`);
+    out.push(`${indent}${name} = ${v.display}${v.uDisplay ? ` ${v.uDisplay}` : ''}`);
     return;
   }
   out.push(`${indent}${name}:`);

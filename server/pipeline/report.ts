@@ -71,7 +71,7 @@ export function buildReport(input: ReportInput): SheetReport {
   errors.sort((a, b) => a.line - b.line || a.column - b.column);
   problems.sort((a, b) => a.line - b.line);
   const values: Record<string, ValueJson> = {};
-  for (const [name, { value, from, spread }] of input.imported) values[name] = { ...withUncertainty(valueJson(value, input.sig), spread), from };
+  for (const [name, { value, from, spread }] of input.imported) values[name] = { ...withUncertainty(valueJson(value, input.sig), spread, value, input.sig), from };
   const inputsList: InputJson[] = [];
   const args: ArgumentJson[] = [];
   for (const r of evaluation.results) {
@@ -80,7 +80,7 @@ export function buildReport(input: ReportInput): SheetReport {
     if (r.stmt.type !== 'define') continue;
     const v = evaluation.values.get(r.stmt.name);
     if (!v) continue;
-    values[r.stmt.name] = withUncertainty(withNotes(valueJson(v, input.sig), r.warnings), r.propagated);
+    values[r.stmt.name] = withUncertainty(withNotes(valueJson(v, input.sig), r.warnings), r.propagated, v, input.sig);
     const text = isLiteral(r.stmt.expr) ? literalText(r.stmt.expr) : undefined;
     if (text !== undefined) inputsList.push({ name: r.stmt.name, line: r.stmt.line, text, value: values[r.stmt.name]! });
   }

@@ -4,6 +4,7 @@
 import type { ListValue, RecordValue, Value } from '../core/index.js';
 import { unitLabel } from '../units/labels.js';
 import { displayKey } from './numbers.js';
+import { uncertaintyText } from './uncertainty.js';
 import { displayText } from './value-text.js';
 
 /** A value as `wakesheet eval --json` and the library hand it on. */
@@ -28,6 +29,8 @@ export interface ValueJson {
   from?: string;
   /** Standard uncertainty in SI, for an input given with `±` and every number that depends on one (first order). */
   u?: number;
+  /** The standard uncertainty as shown beside the value: "± 2 m/s". */
+  uDisplay?: string;
 }
 
 /** Standard uncertainties for a value's JSON: the value's own, and its record fields'. */
@@ -36,14 +39,19 @@ export interface UncertaintyJson {
   fields?: ReadonlyMap<string, { u: number }>;
 }
 
-/** The JSON with `u` added (the cached JSON itself is never changed). */
-export function withUncertainty(json: ValueJson, unc: UncertaintyJson | undefined): ValueJson {
+/**
+ * The JSON with `u` added, and `uDisplay` ("± 2 m/s") in the unit the value
+ * is shown in, for text output; the cached JSON itself is never changed.
+ */
+export function withUncertainty(json: ValueJson, unc: UncertaintyJson | undefined, value: Value, sig: number): ValueJson {
   if (!unc) return json;
   const out: ValueJson = { ...json };
-  if (unc.u !== undefined && Number.isFinite(unc.u) && json.si !== null) out.u = unc.u;
-  if (unc.fields && json.fields) {
+  const spread = (j: ValueJson, v: Value | undefined, u: number): ValueJson =>
+    j.si !== null && Number.isFinite(u) ? { ...j, u, ...(v?.kind === 'quantity' ? { uDisplay: uncertaintyText(v, u, sig) } : {}) } : j;
+  if (unc.u !== undefined) Object.assign(out, spread(json, value, unc.u));
+  if (unc.fields && json.fields && value.kind === 'record') {
     const fields: Record<string, ValueJson> = { ...json.fields };
-    for (const [k, f] of unc.fields) if (fields[k] && fields[k]!.si !== null && Number.isFinite(f.u)) fields[k] = { ...fields[k]!, u: f.u };
+    for (const [k, f] of unc.fields) if (fields[k]) fields[k] = spread(fields[k]!, value.fields.get(k)?.value, f.u);
     out.fields = fields;
   }
   return out;

@@ -144,5 +144,8 @@ describe('wakesheet CLI', () => {
     expect(r.code).toBe(0);
     expect(r.stdout).toContain('spread.md:3: note below the tunnel limit: holds at nominal, fails at U = 33 m/s (1 of the 2 ends of the ±2u range)');
     expect(r.stdout).toContain("1 sheet, all checks pass; 1 check holds at nominal only, not over the inputs' ±2u range");
+    // eval prints a value's standard uncertainty beside it, as the page does.
+    const e = await run(['eval', join(dir, 'spread.md')]);
+    expect(e.stdout).toMatch(/^U = 30 m\/s ± 1\.5 m\/s\n/);
   });
 });
