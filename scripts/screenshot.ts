@@ -20,6 +20,17 @@ const option = (name: string, fallback: string) => {
   return i >= 0 && args[i + 1] ? args[i + 1]! : fallback;
 };
 const valued = new Set(['-o', '--dir', '--width', '--height', '--at']);
+const USAGE = 'usage: npm run screenshot -- [SHEET] [-o OUT] [--dir DIR] [--width N] [--height N] [--full] [--at TEXT] [--print]';
+if (flag('--help') || flag('-h')) {
+  process.stdout.write(USAGE + '\n');
+  process.exit(0);
+}
+// An unknown flag must not fall back to overwriting the README's picture.
+const unknown = args.filter((a, i) => a.startsWith('-') && !valued.has(a) && !['--full', '--print'].includes(a) && !valued.has(args[i - 1] ?? ''));
+if (unknown.length) {
+  process.stderr.write(`unknown option ${unknown.join(', ')}\n${USAGE}\n`);
+  process.exit(2);
+}
 const sheet = args.find((a, i) => !a.startsWith('-') && !valued.has(args[i - 1] ?? '')) ?? 'van-near-wall.md';
 const dir = option('--dir', 'worksheets');
 const print = flag('--print');
