@@ -86,6 +86,7 @@ export function buildReport(input: ReportInput): SheetReport {
   }
   const summary = {
     inputs,
+    used: input.imported.size,
     results,
     checksPassed: checks.filter((c) => c.passed).length,
     checksFailed: checks.filter((c) => !c.passed).length,

@@ -6,6 +6,8 @@ import type { SheetPart } from './parts.js';
 
 export interface SheetSummary {
   inputs: number;
+  /** Names brought in from other sheets by `use`: inputs too, defined elsewhere. */
+  used?: number;
   results: number;
   checksPassed: number;
   checksFailed: number;
@@ -26,9 +28,10 @@ export function summaryHtml(s: SheetSummary, items: SummaryItem[], notes: readon
   const list = items.length
     ? `<ol class="ws-problems">${items.map((i) => `<li class="ws-${i.kind}"><a href="#L${i.line}">line ${i.line}</a> ${escapeHtml(i.text)}</li>`).join('')}</ol>`
     : '';
+  const used = s.used ? cell(s.used, 'brought in', 'brought in', 'used') : '';
   const notRun = s.checksNotRun > 0 ? cell(s.checksNotRun, 'check not run', 'checks not run', 'not-run') : '';
   const notesHtml = notes.map((n) => `<p class="ws-summary-note">${escapeHtml(n)}</p>`).join('');
-  return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'input', 'inputs', 'inputs')}${cell(s.results, 'result', 'results', 'results')}${cell(s.checksPassed, 'check passed', 'checks passed', 'passed')}${cell(s.checksFailed, 'check failed', 'checks failed', 'failed')}${notRun}${cell(s.errors, 'error', 'errors', 'errors')}${list}${notesHtml}</section>`;
+  return `<section class="ws-summary ${state}" aria-label="summary">${cell(s.inputs, 'input', 'inputs', 'inputs')}${used}${cell(s.results, 'result', 'results', 'results')}${cell(s.checksPassed, 'check passed', 'checks passed', 'passed')}${cell(s.checksFailed, 'check failed', 'checks failed', 'failed')}${notRun}${cell(s.errors, 'error', 'errors', 'errors')}${list}${notesHtml}</section>`;
 }
 
 export function headerHtml(title: string, meta: Record<string, string>): string {

@@ -33,6 +33,9 @@ describe('use', () => {
     expect(r.values.U_inf).toMatchObject({ si: 30, from: 'inputs.md' });
     expect(r.reads).toContain('inputs.md');
     expect(r.usedSheets).toEqual([{ path: 'inputs.md', text: inputs }]);
+    // The summary counts the names brought in beside the sheet's own inputs.
+    expect(r.summary).toMatchObject({ inputs: 0, used: 3 });
+    expect(r.summaryHtml).toContain('<span class="ws-n">3</span> brought in');
   });
 
   it('brings only the listed names when a list is given', async () => {
