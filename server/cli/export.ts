@@ -10,7 +10,8 @@ export const EXPORT_HELP = `wakesheet export SHEET.md --json|--csv [-o FILE] [--
 Writes every value of the sheet with its SI value, SI unit, the text the sheet
 shows and its warnings. --json gives {"values": {...}} with records, lists and
 tables nested; --csv gives one row per number: name, si, unit, display,
-warnings (records as name.field, lists as name[1], tables as name[1].column).
+warnings, u (the standard uncertainty in SI, where the value has one;
+records as name.field, lists as name[1], tables as name[1].column).
 Without -o the export goes to standard output. --set (repeatable) replaces an
 input for this run; the JSON then lists the inputs set.`;
 
@@ -42,12 +43,12 @@ export async function exportCommand(argv: string[], sandbox = new Sandbox()): Pr
 
 /** One row per value that has an SI number or a text, records and lists flattened. */
 export function csvOf(values: Record<string, ValueJson>): string {
-  const rows: string[][] = [['name', 'si', 'unit', 'display', 'warnings']];
+  const rows: string[][] = [['name', 'si', 'unit', 'display', 'warnings', 'u']];
   const add = (name: string, v: ValueJson, inherited: readonly string[]) => {
     const warnings = [...inherited, ...(v.warnings ?? [])];
     if (v.table) {
       v.table.rows.forEach((row, i) => row.forEach((cell, c) => add(`${name}[${i + 1}].${v.table!.columns[c]}`, cell, [])));
-      if (warnings.length) rows.push([name, '', '', '', warnings.join('; ')]);
+      if (warnings.length) rows.push([name, '', '', '', warnings.join('; '), '']);
       return;
     }
     if (v.fields) {
@@ -58,7 +59,7 @@ export function csvOf(values: Record<string, ValueJson>): string {
       v.items.forEach((item, i) => add(`${name}[${i + 1}]`, item, warnings));
       return;
     }
-    rows.push([name, v.si === null ? '' : String(v.si), v.unit, v.display, warnings.join('; ')]);
+    rows.push([name, v.si === null ? '' : String(v.si), v.unit, v.display, warnings.join('; '), v.u === undefined ? '' : String(v.u)]);
   };
   for (const [name, v] of Object.entries(values)) add(name, v, []);
   return rows.map((r) => r.map(csvCell).join(',')).join('\n') + '\n';

@@ -15,7 +15,7 @@ export const VERIFY_HELP = `wakesheet verify RECORD.html [--root DIR]
 
 Runs the sheet embedded in a set-up record (written by wakesheet render) again,
 with this version of Wakesheet and the data files on disk, and lists every value
-that now shows differently (beyond the significant figures shown), every check
+that now shows differently (beyond the significant figures shown, its ± too), every check
 whose outcome changed, and every data file that changed or is missing. Data
 files are looked for in the project folder the record names, or in --root DIR.
 Exits 0 only when all of it matches, 1 otherwise.`;
@@ -101,4 +101,6 @@ function compareValue(name: string, was: ValueJson, now: ValueJson | undefined, 
     return;
   }
   if (was.display !== now.display) out.push(`${name} was ${was.display} and is ${now.display} now`);
+  // An uncertainty is compared as shown, as the value is (records written before uDisplay have none to compare).
+  else if (was.uDisplay !== undefined && was.uDisplay !== now.uDisplay) out.push(`the uncertainty of ${name} was ${was.uDisplay} and is ${now.uDisplay ?? 'none'} now`);
 }

@@ -60,6 +60,25 @@ describe('wakesheet verify', () => {
     expect(source.stdout).toContain('does not match its recorded SHA-256: the record was altered');
   });
 
+  it('compares each value’s uncertainty as shown, and exports it in SI', async () => {
+    const p = project();
+    writeFileSync(p.sheet, '# Pod\n\n```basis\nU = 45 m/s ± 2 m/s\nq = U * 2 s\n```\n');
+    await run(['render', p.sheet, '-o', p.record]);
+    const html = readFileSync(p.record, 'utf8');
+    const data = readRecord(html)!;
+    // q = 2 s · U: u(q) = 2 s × 2 m/s = 4 m (GUM eq. 10, c = 2 s).
+    expect(data.values.q).toMatchObject({ u: 4, uDisplay: '± 4 m' });
+    const tampered = structuredClone(data);
+    tampered.values.q!.uDisplay = '± 5 m';
+    const altered = join(p.dir, 'altered-record.html');
+    writeFileSync(altered, html.replace(/(<script type="application\/json" id="wakesheet-record">)[\s\S]*?(<\/script>)/, (_, a: string, b: string) => a + JSON.stringify(tampered).replace(/</g, '\\u003c') + b));
+    const verified = await run(['verify', altered]);
+    expect(verified.code).toBe(1);
+    expect(verified.stdout).toContain('differs: the uncertainty of q was ± 5 m and is ± 4 m now');
+    const csv = (await run(['export', p.sheet, '--csv'])).stdout.trim().split('\n');
+    expect(csv).toContain('q,90,m,90 m,,4');
+  });
+
   it('refuses a file that is not a record', async () => {
     const p = project();
     const r = await run(['verify', p.sheet]);
@@ -74,7 +93,7 @@ describe('wakesheet export', () => {
     const json = JSON.parse((await run(['export', p.sheet, '--json'])).stdout);
     expect(json.values).toEqual(evaluated.values);
     const csv = (await run(['export', p.sheet, '--csv'])).stdout.trim().split('\n');
-    expect(csv[0]).toBe('name,si,unit,display,warnings');
+    expect(csv[0]).toBe('name,si,unit,display,warnings,u');
     const rows = new Map(csv.slice(1).map((l) => [l.split(',')[0], l.split(',')]));
     expect(Number(rows.get('Re')![1])).toBe(evaluated.values.Re.si);
     expect(Number(rows.get('rep.max')![1])).toBe(evaluated.values.rep.fields.max.si);
