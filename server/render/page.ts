@@ -19,7 +19,8 @@ export interface SheetSummary {
 export interface SummaryItem {
   line: number;
   text: string;
-  kind: 'error' | 'fail';
+  /** range: a check that holds at nominal but not over its inputs' ±2u range. */
+  kind: 'error' | 'fail' | 'range';
 }
 
 export function summaryHtml(s: SheetSummary, items: SummaryItem[], notes: readonly string[] = []): string {

@@ -95,6 +95,8 @@ describe('an uncertainty brought in by use', () => {
     // 30 ± 2 × 1.5 m/s: 33 m/s at the upper end, past 32.
     expect(r.checks[0]).toMatchObject({ passed: true, range: { holds: false } });
     expect(r.checks[0]!.range!.text).toBe('holds at nominal, fails at U_design = 33 m/s (1 of the 2 ends of the ±2u range)');
+    // The summary at the top of the page lists it, so it is not found only by scrolling.
+    expect(r.summaryHtml).toContain('<li class="ws-range"><a href="#L3">line 3</a> below the tunnel limit: holds at nominal, fails at U_design = 33 m/s');
   });
 
   it('says on the use line what comes at its nominal value only: a record with uncertain fields, a list', async () => {
