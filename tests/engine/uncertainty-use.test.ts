@@ -3,22 +3,8 @@
 // two correlated names are refused, and what cannot come along is said on the
 // use line. The answers are the law of propagation of uncertainty (JCGM
 // 100:2008, GUM, §5.1.2, eq. 10; relative form for a product, §5.1.6, eq. 12).
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { renderSheet, type RunOptions } from '../../server/pipeline/index.js';
-
-const block = (...lines: string[]) => '```basis\n' + lines.join('\n') + '\n```\n';
-
-function project(files: Record<string, string>) {
-  const root = mkdtempSync(path.join(tmpdir(), 'ws-use-u-'));
-  for (const [name, text] of Object.entries(files)) {
-    mkdirSync(path.dirname(path.join(root, name)), { recursive: true });
-    writeFileSync(path.join(root, name), text);
-  }
-  return (name: string, opts: RunOptions = {}) => renderSheet(files[name]!, { path: path.join(root, name), root, ...opts });
-}
+import { block, project } from './helpers.js';
 
 const inputs = block(
   'U_design = 30 m/s ± 5 %',
@@ -30,7 +16,7 @@ const inputs = block(
 
 describe('an uncertainty brought in by use', () => {
   it('comes with an input, so a product here has its relative uncertainties added in quadrature', async () => {
-    const run = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design, L_ref, nu)', 'Re = U_design * L_ref / nu') });
+    const { run } = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design, L_ref, nu)', 'Re = U_design * L_ref / nu') });
     const r = await run('car.md');
     expect(r.errors).toEqual([]);
     expect(r.values.U_design).toMatchObject({ si: 30, u: 1.5, from: 'inputs.md' });
@@ -41,7 +27,7 @@ describe('an uncertainty brought in by use', () => {
   });
 
   it('keeps an input’s distribution: a uniform half-width stays a/√3', async () => {
-    const run = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (w)', 'A = w * 3 m', 'table_A = budget(A)') });
+    const { run } = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (w)', 'A = w * 3 m', 'table_A = budget(A)') });
     const r = await run('car.md');
     expect(r.errors).toEqual([]);
     // A rectangular distribution of half-width a has u = a/√3 (JCGM 100:2008 §4.3.7, eq. 7); A = 3 m · w.
@@ -52,7 +38,7 @@ describe('an uncertainty brought in by use', () => {
   });
 
   it('comes with a result as its first-order u, and goes on through a sheet that uses the user', async () => {
-    const run = project({
+    const { run } = project({
       'inputs.md': inputs,
       'mid.md': block('use "inputs.md" (Re_design)', 'Re_half = Re_design / 2'),
       'top.md': block('use "mid.md" (Re_half)', 'Re_quarter = Re_half / 2'),
@@ -69,7 +55,7 @@ describe('an uncertainty brought in by use', () => {
   });
 
   it('refuses two names whose uncertainties rest on one input, and what reads the second waits', async () => {
-    const run = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design, Re_design)', 'x = Re_design * 2', 'y = U_design * 2') });
+    const { run } = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design, Re_design)', 'x = Re_design * 2', 'y = U_design * 2') });
     const r = await run('car.md');
     expect(r.errors.map((e) => e.line)).toEqual([2]);
     expect(r.errors[0]!.message).toBe(
@@ -82,7 +68,7 @@ describe('an uncertainty brought in by use', () => {
   });
 
   it('lets two results that rest on different inputs come together', async () => {
-    const run = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design, w)', 'x = U_design * w') });
+    const { run } = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design, w)', 'x = U_design * w') });
     const r = await run('car.md');
     expect(r.errors).toEqual([]);
     // x = U w: u² = (w u_U)² + (U u_w)² (GUM eq. 10), u_w = 0.1/√3.
@@ -90,7 +76,7 @@ describe('an uncertainty brought in by use', () => {
   });
 
   it('tries a check over the range of an input brought in', async () => {
-    const run = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design)', 'check U_design < 32 m/s "below the tunnel limit"') });
+    const { run } = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design)', 'check U_design < 32 m/s "below the tunnel limit"') });
     const r = await run('car.md');
     // 30 ± 2 × 1.5 m/s: 33 m/s at the upper end, past 32.
     expect(r.checks[0]).toMatchObject({ passed: true, range: { holds: false } });
@@ -100,7 +86,7 @@ describe('an uncertainty brought in by use', () => {
   });
 
   it('says on the use line what comes at its nominal value only: a record with uncertain fields, a list', async () => {
-    const run = project({
+    const { run } = project({
       'inputs.md': inputs + block('air_d = air(T: 20 degC)', 'fc = first_cell(U_design, L_ref, air_d, yplus: 1)', 'speeds = [U_design, 2 * U_design]'),
       'car.md': block('use "inputs.md" (fc, speeds, nu)', 'h = fc.height'),
     });
@@ -114,7 +100,7 @@ describe('an uncertainty brought in by use', () => {
   });
 
   it('keeps working with --set on the used sheet’s input: the new value, the same uncertainty', async () => {
-    const run = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design)', 'q = U_design * 2') });
+    const { run } = project({ 'inputs.md': inputs, 'car.md': block('use "inputs.md" (U_design)', 'q = U_design * 2') });
     const r = await run('car.md', { overrides: { U_design: '40 m/s' } });
     expect(r.errors).toEqual([]);
     // 5 % of the new value: the relative uncertainty is kept (language guide, uncertainty with --set).
@@ -123,7 +109,7 @@ describe('an uncertainty brought in by use', () => {
   });
 
   it('runs Monte Carlo over an input brought in, with a local name swept as well', async () => {
-    const run = project({
+    const { run } = project({
       'inputs.md': inputs,
       'car.md': block('use "inputs.md" (U_design)', 'U = U_design', 'q = U * 2 s', 'mc = propagate(q, samples: 2000, seed: 3)', 'rows = sweep(U, [20, 40] m/s, q)'),
     });
@@ -140,7 +126,7 @@ describe('an uncertainty brought in by use', () => {
 
 describe('an uncertainty in prose and in lists', () => {
   it('gives a value in prose its ±, for a name and for an expression', async () => {
-    const run = project({ 'one.md': block('U = 30 m/s ± 1.5 m/s', 'L = 4 m ± 0.2 m') + '\nAt `=U` the product is `=U * L`.\n' });
+    const { run } = project({ 'one.md': block('U = 30 m/s ± 1.5 m/s', 'L = 4 m ± 0.2 m') + '\nAt `=U` the product is `=U * L`.\n' });
     const r = await run('one.md');
     const html = r.parts.map((p) => p.html).join('');
     const us = [...html.matchAll(/class="ws-inline"[^>]*>[^<]*<span class="ws-u" data-u="([^"]+)"/g)].map((m) => Number(m[1]));
@@ -150,7 +136,7 @@ describe('an uncertainty in prose and in lists', () => {
   });
 
   it('says under a list that depends on an uncertain input that its items are nominal', async () => {
-    const run = project({ 'one.md': block('U = 30 m/s ± 1.5 m/s', 'speeds = [U, 2 * U]', 'top = speeds[2]', 'plain = [1 m, 2 m]') });
+    const { run } = project({ 'one.md': block('U = 30 m/s ± 1.5 m/s', 'speeds = [U, 2 * U]', 'top = speeds[2]', 'plain = [1 m, 2 m]') });
     const r = await run('one.md');
     expect(r.values.speeds!.warnings).toEqual([
       'this list depends on an input with an uncertainty (U), but a list carries none: its items are nominal values; name an item (x = speeds[1]) to see its uncertainty',

@@ -2,24 +2,11 @@
 // names listed when a list is given; circles, a name from two sheets, a name
 // the other sheet lacks and a path outside the project each an error on the
 // use line; what fails there makes what reads it here wait.
-import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { renderSheet, SheetPipeline, type RunOptions } from '../../server/pipeline/index.js';
-
-const block = (...lines: string[]) => '```basis\n' + lines.join('\n') + '\n```\n';
-
-/** A project folder with these files; returns a runner for one of them. */
-function project(files: Record<string, string>) {
-  const root = mkdtempSync(path.join(tmpdir(), 'ws-use-'));
-  for (const [name, text] of Object.entries(files)) {
-    mkdirSync(path.dirname(path.join(root, name)), { recursive: true });
-    writeFileSync(path.join(root, name), text);
-  }
-  const run = (name: string, opts: RunOptions = {}) => renderSheet(files[name]!, { path: path.join(root, name), root, ...opts });
-  return { root, run };
-}
+import { renderSheet, SheetPipeline } from '../../server/pipeline/index.js';
+import { block, project } from './helpers.js';
 
 const inputs = block('U_inf = 30 m/s', 'L_ref = 4.2 m', 'gas = fluid(rho: 1.2 kg/m^3, mu: 1.8e-5 Pa s)');
 
