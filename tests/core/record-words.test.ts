@@ -192,7 +192,9 @@ describe('what the basic maths say of themselves', () => {
     ]);
     expect(mathsEntries.map((f) => f.example)).toEqual(['sqrt(4 m^2)', 'abs(-3 m/s)', 'exp(1)', 'ln(10)', 'log10(1e6)', 'sin(30 deg)', 'cos(pi/3)', 'tan(45 deg)', 'min([3, 1, 2] m)', 'max([3, 1, 2] m)', 'linspace(10 m/s, 40 m/s, 4)', 'sum([1, 2, 3] m)', 'mean([1, 2, 3] m)']);
     expect(mathsEntries.flatMap((f) => f.params.map((p) => p.doc))).toEqual([
-      'argument', 'argument', 'argument', 'argument', 'argument', 'argument', 'argument', 'argument',
+      'argument, in any unit', 'argument, in any unit',
+      'the argument, without a unit', 'the argument, without a unit', 'the argument, without a unit',
+      'an angle in radians, or in deg', 'an angle in radians, or in deg', 'an angle in radians, or in deg',
       'a list, or several arguments', 'a list, or several arguments', 'first value', 'last value (same unit as start)', 'number of values, 2 to 100000',
       'a list of numbers or quantities of one unit', 'a list of numbers or quantities of one unit',
     ]);

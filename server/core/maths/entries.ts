@@ -7,7 +7,9 @@ import { ANY_DIMENSION, type Args, type ParamSpec, type ResultSpec, type TradeFu
 import { TradeError } from '../shared/trade-error.js';
 import { num, type Value } from '../shared/values.js';
 
-const X: ParamSpec[] = [{ name: 'x', type: 'quantity', unit: ANY_DIMENSION, doc: 'argument' }];
+const X: ParamSpec[] = [{ name: 'x', type: 'quantity', unit: ANY_DIMENSION, doc: 'argument, in any unit' }];
+const PLAIN_X: ParamSpec[] = [{ name: 'x', type: 'quantity', unit: '1', doc: 'the argument, without a unit' }];
+const ANGLE_X: ParamSpec[] = [{ name: 'x', type: 'quantity', unit: '1', doc: 'an angle in radians, or in deg' }];
 const PLAIN: ResultSpec = { symbol: '', unit: '1', doc: 'the result' };
 const LIKE_ARGUMENTS: ResultSpec = { symbol: '', unit: ANY_DIMENSION, doc: 'the result, in the unit of the arguments' };
 
@@ -23,10 +25,10 @@ function plainArg(args: Args, fn: string): number {
   return v.si;
 }
 
-function unary(name: string, doc: string, f: (x: number) => number, example: string): TradeFunction {
+function unary(name: string, doc: string, f: (x: number) => number, example: string, params = PLAIN_X): TradeFunction {
   return {
     name,
-    params: X,
+    params,
     returns: PLAIN,
     doc,
     source: 'ECMAScript Math (IEEE 754 double precision)',
@@ -102,9 +104,9 @@ export const mathsEntries: TradeFunction[] = [
   unary('exp', 'e to the power x', Math.exp, 'exp(1)'),
   unary('ln', 'natural logarithm', (x) => (x > 0 ? Math.log(x) : NaN), 'ln(10)'),
   unary('log10', 'base-10 logarithm', (x) => (x > 0 ? Math.log10(x) : NaN), 'log10(1e6)'),
-  unary('sin', 'sine of an angle in radians (30 deg converts)', Math.sin, 'sin(30 deg)'),
-  unary('cos', 'cosine of an angle in radians', Math.cos, 'cos(pi/3)'),
-  unary('tan', 'tangent of an angle in radians', Math.tan, 'tan(45 deg)'),
+  unary('sin', 'sine of an angle in radians (30 deg converts)', Math.sin, 'sin(30 deg)', ANGLE_X),
+  unary('cos', 'cosine of an angle in radians', Math.cos, 'cos(pi/3)', ANGLE_X),
+  unary('tan', 'tangent of an angle in radians', Math.tan, 'tan(45 deg)', ANGLE_X),
   extremum('min'),
   extremum('max'),
   {
