@@ -62,7 +62,7 @@ describe('wall-layer stack picture', () => {
     // The first layer's top: log10(20 µm) is 0.301 of a decade above 10 µm, of four decades.
     const lines = /<path d="(M84\.0 [\d.]+H250\.0)/.exec(log)![1]!;
     expect(lines).toBe(`M84.0 ${px(WALL - ((Math.log10(20e-6) + 5) / 4) * (WALL - TOP))}H250.0`);
-    expect(log).toContain('log axis; the wall lies below its lowest tick');
+    expect(log).toContain('>log axis: the wall lies below its lowest tick<');
     expect(log).not.toContain('not drawn separately');
     // The same stack on a linear axis cannot draw its thin layers apart, and says so.
     const lin = stackSvg({ heights: h, growth: 1.2, scale: 'linear' });

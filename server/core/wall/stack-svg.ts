@@ -72,7 +72,8 @@ export function stackSvg(p: StackPicture): string {
   for (const l of placeLabels(labels)) body.push(text(RIGHT + 6, l.y, l.text, l.colour ? `fill="${l.colour}"` : ''));
   const heading = `${p.heights.length} layers, growth ${numberText(p.growth)} (${p.scale} scale)`;
   body.push(text(8, 16, heading, 'font-weight="bold"'));
-  if (skipped) body.push(text(8, H - 8, `${skipped} layer lines thinner than a pixel are not drawn separately`, 'font-size="11"'));
+  const notes = [...(p.scale === 'log' ? ['log axis: the wall lies below its lowest tick'] : []), ...(skipped ? [`${skipped} layer lines thinner than a pixel are not drawn separately`] : [])];
+  notes.forEach((n, i) => body.push(text(8, H - 8 - 14 * (notes.length - 1 - i), n, 'font-size="11"')));
   return svgDocument(W, H, `Wall-layer stack: ${heading}`, body);
 }
 
@@ -131,8 +132,8 @@ function axis(map: AxisMap, scale: StackScale): string[] {
     out.push(text(AXIS_X - 6, yy + 4, t === 0 ? '0' : lengthText(t), 'text-anchor="end" font-size="11"'));
   }
   const mid = (TOP + WALL) / 2;
-  const label = scale === 'log' ? 'distance from wall (log axis; the wall lies below its lowest tick)' : 'distance from wall';
-  out.push(verticalText(12, mid, label, 'font-size="11"'));
+  // The axis label stays short enough to fit beside the axis; the log axis's note goes under the picture.
+  out.push(verticalText(12, mid, scale === 'log' ? 'distance from wall (log)' : 'distance from wall', 'font-size="11"'));
   return out;
 }
 
