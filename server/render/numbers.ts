@@ -67,7 +67,8 @@ export function showQuantity(q: Quantity, sig: number): Shown {
     return { ...formatNumber(v, sig), unit: q.unit.text };
   }
   if (isDimensionless(q.dims)) return { ...formatNumber(q.si, sig), unit: '' };
-  const label = unitLabel(q.dims);
+  // A typed J stays an energy (and kJ re-prefixes to MJ), though force times length is shown as N·m.
+  const label = (q.unit && prefixedBase(q.unit.text)) ?? unitLabel(q.dims);
   const wanted = q.unit ? undefined : preferred.get(label);
   if (wanted && !q.absolute) return { ...formatNumber(q.si / wanted.factor, sig), unit: wanted.text };
   const prefix = q.si !== 0 ? engineeringPrefix(label, Math.abs(roundSig(q.si, sig))) : null;
@@ -77,11 +78,16 @@ export function showQuantity(q: Quantity, sig: number): Shown {
 
 /** A typed unit that is only a prefixed SI unit (mm, kPa, m) is re-prefixed to fit the value. */
 function autoPrefixed(text: string): boolean {
+  return prefixedBase(text) !== undefined;
+}
+
+/** The SI unit a typed unit is a prefixed form of (kJ → J, mm → m), if it is one. */
+function prefixedBase(text: string): string | undefined {
   for (const label of PREFIXABLE) {
-    if (text === label) return true;
-    if (text.endsWith(label) && text.length === label.length + 1 && 'GMkmuµμn'.includes(text[0]!)) return true;
+    if (text === label) return label;
+    if (text.endsWith(label) && text.length === label.length + 1 && 'GMkmuµμn'.includes(text[0]!)) return label;
   }
-  return false;
+  return undefined;
 }
 
 const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹', '.': '·' };

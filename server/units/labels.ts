@@ -21,7 +21,8 @@ const NAMED: Array<[string, Dims]> = [
   ['Pa', [1, -1, -2, 0, 0, 0, 0]],
   ['Pa s', [1, -1, -1, 0, 0, 0, 0]],
   ['N', [1, 1, -2, 0, 0, 0, 0]],
-  ['J', [1, 2, -2, 0, 0, 0, 0]],
+  // Force times length: in an external-flow set-up that is a moment (a drag force's arm), far more often than an energy.
+  ['N m', [1, 2, -2, 0, 0, 0, 0]],
   ['W', [1, 2, -3, 0, 0, 0, 0]],
   ['J/(kg K)', [0, 2, -2, 0, -1, 0, 0]],
   ['W/(m K)', [1, 1, -3, 0, -1, 0, 0]],

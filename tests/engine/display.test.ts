@@ -11,6 +11,14 @@ describe('the unit a quantity is shown in', () => {
     expect(r.values.h!.display).toBe('23 µm');
   });
 
+  it('shows a force times a length as a moment, N·m, and a typed joule as an energy', async () => {
+    // The SI Brochure (BIPM, 9th ed., 2019, §2.3.4, Table 4) lists the moment of force in N m and energy in J (from memory).
+    const r = await sheet(['F = 120 N', 'M = F * 0.4 m', 'E = 3000 J', 'T = 12 kN m']);
+    expect(r.values.M!.display).toBe('48 N·m');
+    expect(r.values.E!.display).toBe('3 kJ');
+    expect(r.values.T!.display).toBe('12 kN·m');
+  });
+
   it('follows the units the front matter asks for, by dimension, for every value and field', async () => {
     const r = await sheet(['U = 30 m/s', 'p = 0.5 * 1.2 kg/m^3 * U^2', 'wall = first_cell(U, 4 m, fluid(rho: 1.2 kg/m^3, mu: 1.8e-5 Pa s))'], 'units:\n  Pa: kPa\n  m: mm');
     expect(r.errors).toEqual([]);
