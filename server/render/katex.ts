@@ -2,6 +2,10 @@
 // formulas whose text changed. Trust stays off (no \href to javascript:).
 // The cache is bounded by the characters it holds, not by a count of
 // formulas: a sheet of long formulas must not take the memory of the sheet.
+// It is small: the renderer keeps each statement's html itself (packed), so
+// the cache matters only for the statements an edit changes, whose symbolic
+// heads it spares typesetting again; a large sheet's first run fills it in
+// passing, and it then holds the formulas seen last.
 // KaTeX is loaded at the first formula: a run that renders nothing (the
 // command line's eval and check) never pays for it.
 import { createRequire } from 'node:module';
@@ -15,8 +19,10 @@ function typesetter(): typeof katexModule {
 }
 
 const cache = new Map<string, string>();
-/** Characters of LaTeX and html the cache may hold (one byte each once compact). */
-const MAX_CHARS = 6_000_000;
+/** Bytes the cache may hold: LaTeX and html at one byte a character once compact, and each entry's own cost. */
+const MAX_BYTES = 600_000;
+/** The heap an entry takes besides its characters: its slot in the map and two string headers. */
+const ENTRY_BYTES = 64;
 let held = 0;
 
 export function mathHtml(latex: string, display = false): string {
@@ -24,16 +30,22 @@ export function mathHtml(latex: string, display = false): string {
   const hit = cache.get(key);
   if (hit !== undefined) return hit;
   const html = compactHtml(typesetter().renderToString(latex, { throwOnError: false, displayMode: display, output: 'htmlAndMathml', strict: 'ignore', trust: false, maxExpand: 200 }));
-  const size = key.length + html.length;
-  if (size > MAX_CHARS / 8) return html; // a formula this long is not worth keeping
-  while (held + size > MAX_CHARS) {
+  const size = ENTRY_BYTES + key.length + html.length;
+  if (size > MAX_BYTES / 8) return html; // a formula this long is not worth keeping
+  while (held + size > MAX_BYTES) {
     const [oldKey, oldHtml] = cache.entries().next().value!;
     cache.delete(oldKey);
-    held -= oldKey.length + oldHtml.length;
+    held -= ENTRY_BYTES + oldKey.length + oldHtml.length;
   }
   cache.set(key, html);
   held += size;
   return html;
+}
+
+/** Empties the cache (for measuring what one sheet's formulas take). */
+export function forgetFormulas(): void {
+  cache.clear();
+  held = 0;
 }
 
 /**

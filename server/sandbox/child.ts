@@ -10,7 +10,7 @@ import { pipelineKey, PROGRESS_AFTER_MS, PROGRESS_EVERY_MS, type ChildProgress, 
 
 /** Pipelines by key, least recently used first. */
 const pipelines = new Map<string, SheetPipeline>();
-/** What the parent holds for each pipeline: part key → html last sent. */
+/** What the parent holds for each pipeline: part key → token of the html last sent (see SheetPart). */
 const sent = new Map<string, Map<string, string>>();
 const MAX_PIPELINES = 200;
 /** Share of the heap limit past which the other sheets' caches are dropped. */
@@ -55,8 +55,9 @@ process.on('message', (msg: ChildRequest) => {
     };
     const report = pipelineFor(key, msg.limits).run(msg.text, msg.opts, { progress });
     const before = sent.get(key) ?? new Map<string, string>();
-    const parts = report.parts.map((p) => (before.get(p.key) === p.html ? { key: p.key } : p));
-    sent.set(key, new Map(report.parts.map((p) => [p.key, p.html])));
+    // A kept part's html is unpacked only here, and only when the parent does not have it yet.
+    const parts = report.parts.map((p) => (before.get(p.key) === (p.token ?? p.html) ? { key: p.key } : { key: p.key, html: p.html }));
+    sent.set(key, new Map(report.parts.map((p) => [p.key, p.token ?? p.html])));
     reply = { id: msg.id, ok: true, report: { ...report, parts } };
     makeRoom(key);
   } catch (e) {
