@@ -274,7 +274,8 @@ function packedPart(key: string, packed: PackedHtml): SheetPart {
 /** What a use line shows: its sheet, its error, each name and value (values by identity). */
 function useInputs(u: UseView | undefined, out: unknown[]): void {
   out.push(u?.path, u?.error?.message, u?.error?.column);
-  for (const n of u?.names ?? []) out.push(n.name, n.value);
+  for (const n of u?.names ?? []) out.push(n.name, n.value, n.u);
+  out.push(u?.notes?.join('\n'));
 }
 
 function statementKey(s: Statement): string {
@@ -293,6 +294,9 @@ function brokenHtml(item: BrokenLine, view: SheetView): string {
 /** What a statement's HTML depends on, appended to `out`. */
 function statementInputs(r: StatementResult, view: SheetView, out: unknown[]): unknown[] {
   out.push(r.stmt.line, r.stmt.source, r.value, r.error?.message, r.error?.column, r.blockedBy, r.skipped, r.warnings.length ? r.warnings.join('\n') : '');
+  // The ± shown and the range verdict, by value: an input's spread can change while the values stay the same objects.
+  const p = r.propagated;
+  out.push(p?.u, p?.problem, p?.fields ? [...p.fields].map(([k, f]) => `${k}:${f.u}`).join(',') : undefined, r.uncertain?.distribution, r.range?.text);
   for (const n of r.uses) out.push(view.values.get(n));
   if ((r.error || r.blockedBy) && r.stmt.type === 'define') out.push(view.lastGood.get(r.stmt.name));
   return out;

@@ -6,10 +6,12 @@ import { describe, expect, it } from 'vitest';
 import { SheetPipeline } from '../../server/pipeline/index.js';
 
 const text = readFileSync('worksheets/van-near-wall.md', 'utf8');
+/** The sheet in its project, so that its use line finds the shared inputs. */
+const at = { path: 'worksheets/van-near-wall.md', root: 'worksheets' };
 
 describe('html kept between runs', () => {
   const edits: Array<[string, string]> = [
-    ['one input changed', text.replace(/^U = 110 km\/h/m, 'U = 120 km/h')],
+    ['one input changed', text.replace(/^U = U_design/m, 'U = U_design * 1.1')],
     ['the input changed back', text],
     ['a line of prose added, moving every line below', text.replace(/^## /m, 'One more line.\n\n## ')],
     ['as it was', text],
@@ -19,10 +21,10 @@ describe('html kept between runs', () => {
   it('reads back as a fresh render after each edit, with tokens that follow the html', () => {
     expect(edits[0]![1]).not.toBe(text);
     const kept = new SheetPipeline();
-    let before = new Map(kept.run(text).parts.map((p) => [p.key, { html: p.html, token: p.token ?? p.html }]));
+    let before = new Map(kept.run(text, at).parts.map((p) => [p.key, { html: p.html, token: p.token ?? p.html }]));
     for (const [what, next] of edits) {
-      const parts = kept.run(next).parts;
-      const fresh = new SheetPipeline().run(next).parts;
+      const parts = kept.run(next, at).parts;
+      const fresh = new SheetPipeline().run(next, at).parts;
       expect(parts.map((p) => p.html), what).toEqual(fresh.map((p) => p.html));
       for (const p of parts) {
         const last = before.get(p.key);
@@ -33,7 +35,7 @@ describe('html kept between runs', () => {
   });
 
   it('packs the blocks of a large sheet', () => {
-    const parts = new SheetPipeline().run(text).parts;
+    const parts = new SheetPipeline().run(text, at).parts;
     const packed = parts.filter((p) => p.token !== undefined && p.token !== p.html);
     expect(packed.length).toBeGreaterThan(0);
     for (const p of packed) expect(p.token!.length).toBeLessThan(p.html.length / 3);
