@@ -67,3 +67,10 @@ describe('inlet turbulence and the atmospheric profile', () => {
     expect(() => richardsHoxey(10, 10, 0.03, 0.41, 0)).toThrow('C_mu must be above zero');
   });
 });
+
+describe('which inlet scale was given', () => {
+  it('says length or ratio', () => {
+    expect(inletTurbulence(10, 0.05, { length: 0.1 }, 1.5e-5).given).toBe('length');
+    expect(inletTurbulence(10, 0.05, { ratio: 10 }, 1.5e-5).given).toBe('ratio');
+  });
+});

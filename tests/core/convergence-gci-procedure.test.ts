@@ -153,3 +153,13 @@ describe('inputs that cannot make a study, each with its own words', () => {
     expect(() => call('gci', { phi: nums([1, 1.1, 1.3]), h: nums([1, 2]) })).toThrow('h must list three cell sizes, fine to coarse, not 2');
   });
 });
+
+describe('the oscillatory case through the worksheet entry', () => {
+  it('warns in full and counts one step: with r21 = r32, q(p) = 0 and the first iterate is the order', () => {
+    const r = call('gci', { phi: nums([1.0, 0.98, 1.01]), h: nums([1, 2, 4]) });
+    expect(r.warnings).toEqual([
+      'the differences between the grids change sign (ε32/ε21 < 0): oscillatory convergence, for which Celik et al. (2008) warn that the observed order and the GCI are less reliable; add a grid or report the spread of the three values.',
+    ]);
+    expect(r.remarks.join('\n')).toContain('by fixed-point iteration (1 step).');
+  });
+});

@@ -95,3 +95,9 @@ describe('advice on α_u (common practice)', () => {
     expect(recommend('SIMPLE', 'converged', 0.9, 0.7)).toEqual({ advice: 'keep', alphaU: 0.7, reason: 'the run has converged: keep the factors' });
   });
 });
+
+describe('the factor refused by name', () => {
+  it('names alpha_u when the present factor is outside 0 < α ≤ 1', () => {
+    expect(() => undampedFactor(0.9, 1.5, 'monotone')).toThrow('alpha_u 1.5 is outside 0 < α ≤ 1');
+  });
+});
