@@ -87,6 +87,9 @@ export function observedOrder(r21: number, r32: number, ratio32: number, s: numb
   for (let k = 1; k <= 500; k++) {
     const num = Math.pow(r21, p) - s;
     const den = Math.pow(r32, p) - s;
+    // An order so large that r^p overflows means the iteration ran away: say so,
+    // rather than report the quotient Infinity/Infinity as "not positive".
+    if (!Number.isFinite(num) || !Number.isFinite(den)) break;
     if (!(num / den > 0)) throw new TradeError(`the observed order cannot be found: (r21^p − s)/(r32^p − s) is not positive at p = ${numberText(p)}`);
     const next = Math.abs(lnRatio + Math.log(num / den)) / lnR21;
     if (!Number.isFinite(next)) break;
