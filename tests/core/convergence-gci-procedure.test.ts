@@ -79,6 +79,16 @@ describe('the asymptotic check and its warning', () => {
     ]);
   });
 
+  it('says that with one refinement ratio the check is φ1/φ2 itself, and not with two', () => {
+    // Derived here from Celik et al. (2008), eqs. 3–4 and the GCI definition: with r21 = r32 = r,
+    // ε32 = r^p ε21, so GCI32/(r^p GCI21) = (e32/e21)/r^p = φ1/φ2.
+    const same = call('gci', { phi: nums([1.0, 0.98, 0.95]), h: nums([1, 2, 4]) });
+    expect(siField(same, 'ratio')).toBeCloseTo(1.0 / 0.98, 12);
+    expect(same.remarks.join('\n')).toContain('With one refinement ratio for both pairs the ratio is φ1/φ2 exactly');
+    const two = call('gci', { phi: nums([...TABLE1_PHI]), cells: nums(TABLE1_CELLS), dim: num(2) });
+    expect(two.remarks.join('\n')).not.toContain('With one refinement ratio');
+  });
+
   it('flags oscillatory convergence from gci() itself (own case of convergence-gci.test.ts)', () => {
     const g = gci({ phi: [1.0, 0.98, 1.01], h: [1, 2, 4] });
     expect(g.oscillatory).toBe(true);
