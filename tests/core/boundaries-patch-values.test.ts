@@ -3,7 +3,9 @@
 // unit fact it rests on, computed here from the inputs.
 import { describe, expect, it } from 'vitest';
 import { record, si, str, type RecordValue } from '../../server/core/index.js';
-import { listField, relErr, run, runRecord, siField, tableRows } from './boundaries-helpers.js';
+import { cross, describePatch, vectorText } from '../../server/core/boundaries/patches.js';
+import { numberText } from '../../server/core/shared/words.js';
+import { asQuantity, listField, relErr, run, runRecord, siField, tableRows } from './boundaries-helpers.js';
 
 /** The "values" cell of each row of a boundaries() table. */
 function valuesOf(r: RecordValue): string[] {
@@ -209,5 +211,67 @@ describe('the checks of a set of patches, at their edges', () => {
   it('a ground at rest with a wheel turning in place is a slipping wheel', () => {
     const r = runRecord('boundaries([velocity_inlet("inlet", 30 m/s), pressure_outlet("outlet"), moving_wall("floor", [0, 0, 0] m/s), rotating_wall("wheel", 10 rad/s, radius: 0.3 m)])');
     expect(r.warnings.join(' ')).toMatch(/moves at \(3, 0, 0\) m\/s, the ground "floor" at \(0, 0, 0\) m\/s: the wheel slips/);
+  });
+});
+
+describe('the vector pieces of the patch checks', () => {
+  it('cross is the right-handed vector product: x̂ × ŷ = ẑ, (1, 2, 3) × (4, 5, 6) = (−3, 6, −3) (any vector-algebra text)', () => {
+    expect(cross([1, 0, 0], [0, 1, 0])).toEqual([0, 0, 1]);
+    expect(cross([1, 2, 3], [4, 5, 6])).toEqual([-3, 6, -3]);
+    expect(cross([4, 5, 6], [1, 2, 3])).toEqual([3, -6, 3]);
+  });
+
+  it('a component below 1e-12 of the vector\'s length shows as 0, relative to that length', () => {
+    expect(vectorText([30, 1e-13, 0], 'm/s')).toBe('(30, 0, 0) m/s');
+    expect(vectorText([1e6, 1e-7, 0])).toBe(`(${numberText(1e6)}, 0, 0)`);
+    expect(vectorText([1e-3, 1e-10, 0])).toBe(`(0.001, ${numberText(1e-10)}, 0)`);
+    expect(vectorText([0, 0, 0], 'm')).toBe('(0, 0, 0) m');
+  });
+
+  it('an inlet\'s turbulence lists only the values it has', () => {
+    const text = describePatch({ name: 'in', kind: 'velocity_inlet', velocity: [10, 0, 0], turbulence: { k: 0.1, omega: 5 } });
+    expect(text).toBe('U = (10, 0, 0) m/s; k = 0.1 m²/s², ω = 5 1/s');
+    expect(describePatch({ name: 'in', kind: 'opening', p: 0, turbulence: { k: 0.1, epsilon: 0.02 } })).toBe('pressure 0 Pa (gauge); inflow: k = 0.1 m²/s², ε = 0.02 m²/s³');
+  });
+
+  it('an incompressible case with no pressure level gets the warning, not the compressible remark', () => {
+    const r = runRecord('boundaries([velocity_inlet("inlet", 30 m/s), flow_rate_outlet("out", 90 m^3/s)])');
+    expect(r.remarks.join(' ')).not.toMatch(/Compressible case/);
+    expect(r.remarks.join(' ')).not.toMatch(/pressure level is fixed/);
+  });
+
+  it('a domain without a downstream length leaves an unplaced outlet unremarked', () => {
+    const d = record([['upstream', si(60, 'm')]]);
+    const r = runRecord('boundaries([velocity_inlet("inlet", 20 m/s, distance: 70 m), pressure_outlet("outlet")], domain: d)', { d });
+    expect(r.remarks.join(' ')).not.toMatch(/no distance given/);
+  });
+
+  it('a wheel on an axis along x rolls on a ground moving along y: Ω × (−r ẑ) with Ω = ω x̂ is ω r ŷ (rigid-body kinematics)', () => {
+    const open = 'velocity_inlet("inlet", 30 m/s), pressure_outlet("outlet")';
+    expect(runRecord(`boundaries([${open}, moving_wall("belt", [0, 3, 0] m/s), rotating_wall("roller", 10 rad/s, axis: [1, 0, 0], radius: 0.3 m)])`).warnings).toEqual([]);
+    const wrong = runRecord(`boundaries([${open}, moving_wall("belt", [0, -3, 0] m/s), rotating_wall("roller", 10 rad/s, axis: [1, 0, 0], radius: 0.3 m)])`);
+    expect(wrong.warnings.join(' ')).toMatch(/"roller" moves at \(0, 3, 0\) m\/s, the ground "belt" at \(0, −3, 0\) m\/s/);
+  });
+
+  it('speeds in a patch record carry the dimension of a speed', () => {
+    const ms = si(1, 'm/s').dims;
+    expect(asQuantity(runRecord('moving_wall("road", 30 m/s)').fields.get('U')!.value).dims).toEqual(ms);
+    expect(asQuantity(runRecord('rotating_wall("w", 10 rad/s, radius: 0.3 m)').fields.get('rim')!.value).dims).toEqual(ms);
+  });
+
+  it('refuses a patch record with no name, a name that is not text, a velocity that is not a list, or a component in the wrong unit', () => {
+    const road = runRecord('moving_wall("road", 30 m/s)');
+    const edited = (field: string, value: unknown): RecordValue => {
+      const fields = new Map(road.fields);
+      if (value === undefined) fields.delete(field);
+      else fields.set(field, { ...fields.get(field)!, value: value as never });
+      return { ...road, fields };
+    };
+    expect(() => run('boundaries([g])', { g: edited('patch', undefined) })).toThrow(/item 1 of patches is not a patch: build/);
+    expect(() => run('boundaries([g])', { g: edited('patch', si(3, 'm')) })).toThrow(/item 1 of patches is not a patch: build/);
+    expect(() => run('boundaries([g])', { g: edited('condition', undefined) })).toThrow(/item 1 of patches is not a patch: build/);
+    expect(() => run('boundaries([g])', { g: edited('condition', si(3, 'm')) })).toThrow(/item 1 of patches is not a patch: build/);
+    expect(() => run('boundaries([g])', { g: edited('velocity', si(30, 'm/s')) })).toThrow(/velocity of a patch must list three components/);
+    expect(() => run('boundaries([g])', { g: edited('velocity', { kind: 'list', items: [si(1, 'm/s'), si(2, 'Pa'), si(0, 'm/s')] }) })).toThrow(/velocity\[2\] must be in/);
   });
 });
