@@ -208,6 +208,11 @@ describe('the checks of a set of patches, at their edges', () => {
     expect(tilted.warnings).toEqual([]);
   });
 
+  it('a wheel at rest on a ground at rest does not slip (rigid-body kinematics: Ω = 0 gives a contact point at rest)', () => {
+    const r = runRecord('boundaries([velocity_inlet("inlet", 30 m/s), pressure_outlet("outlet"), moving_wall("floor", [0, 0, 0] m/s), rotating_wall("wheel", 0 rad/s, radius: 0.3 m)])');
+    expect(r.warnings).toEqual([]);
+  });
+
   it('a ground at rest with a wheel turning in place is a slipping wheel', () => {
     const r = runRecord('boundaries([velocity_inlet("inlet", 30 m/s), pressure_outlet("outlet"), moving_wall("floor", [0, 0, 0] m/s), rotating_wall("wheel", 10 rad/s, radius: 0.3 m)])');
     expect(r.warnings.join(' ')).toMatch(/moves at \(3, 0, 0\) m\/s, the ground "floor" at \(0, 0, 0\) m\/s: the wheel slips/);
