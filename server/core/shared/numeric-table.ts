@@ -267,8 +267,14 @@ function countLines(text: string, from: number, to: number): number {
   return n;
 }
 
+/** A field enclosed in double quotes, a quote inside written twice (RFC 4180, section 2, rules 5 and 7). */
+const QUOTED = /^"((?:[^"]|"")*)"$/;
+
 /** A cell off the fast path: a non-finite word a solver writes, or whatever csv.ts makes of it. */
-function slowCell(shape: DelimitedTable, cell: string, row: number, column: number): number {
+function slowCell(shape: DelimitedTable, raw: string, row: number, column: number): number {
+  // csv.ts reads a quoted field by its content; so must this reader, or "2.5" in quotes would be refused here and read there.
+  const quoted = QUOTED.exec(raw);
+  const cell = quoted ? quoted[1]!.replace(/""/g, '"') : raw;
   const nonFinite = NON_FINITE.exec(cell);
   if (nonFinite) return nonFinite[2]!.toLowerCase() === 'nan' ? NaN : nonFinite[1] === '-' ? -Infinity : Infinity;
   const cells: string[] = [];
