@@ -2,35 +2,11 @@
 // decides the delimiter, the header, what a number is and how a bad cell is
 // worded. Every check compares the two readers on the same text.
 import { describe, expect, it } from 'vitest';
-import { checkRowWidth, numberCell, readDelimited } from '../../server/core/shared/csv.js';
+import { readDelimited } from '../../server/core/shared/csv.js';
+import { errorOf, viaCsv, viaFast } from './numeric-table-helpers.js';
 import { readNumericTable } from '../../server/core/shared/numeric-table.js';
 import { TradeError } from '../../server/core/index.js';
 
-/** What csv.ts makes of a table of numbers: header, numbers by column, row numbers. */
-function viaCsv(text: string) {
-  const t = readDelimited(text);
-  const columns = t.header.map(() => [] as number[]);
-  for (const row of t.rows) {
-    checkRowWidth(t, row);
-    t.header.forEach((_, c) => columns[c]!.push(numberCell(t, row, c)));
-  }
-  return { header: t.header, columns, lines: t.rows.map((r) => r.row) };
-}
-
-function viaFast(text: string) {
-  const t = readNumericTable(text);
-  return { header: t.header, columns: t.columns.map((c) => [...c.subarray(0, t.rows)]), lines: [...t.lines.subarray(0, t.rows)] };
-}
-
-function errorOf(f: () => unknown): string {
-  try {
-    f();
-  } catch (e) {
-    expect(e).toBeInstanceOf(TradeError);
-    return (e as Error).message;
-  }
-  throw new Error('no error');
-}
 
 /** Deterministic numbers in the forms solvers write: plain, exponent, signs, many digits, tiny and huge. */
 function numberTexts(count: number): string[] {

@@ -3,34 +3,11 @@
 // syntax of a decimal number: the fast path must give the same number or the
 // same refusal as the slow one, wherever a cell stops it.
 import { describe, expect, it } from 'vitest';
-import { checkRowWidth, numberCell, readDelimited } from '../../server/core/shared/csv.js';
+import { readDelimited } from '../../server/core/shared/csv.js';
+import { errorOf, viaCsv, viaFast } from './numeric-table-helpers.js';
 import { readNumericTable } from '../../server/core/shared/numeric-table.js';
 import { TradeError } from '../../server/core/index.js';
 
-function viaCsv(text: string) {
-  const t = readDelimited(text);
-  const columns = t.header.map(() => [] as number[]);
-  for (const row of t.rows) {
-    checkRowWidth(t, row);
-    t.header.forEach((_, c) => columns[c]!.push(numberCell(t, row, c)));
-  }
-  return { header: t.header, columns, lines: t.rows.map((r) => r.row) };
-}
-
-function viaFast(text: string, growing = false) {
-  const t = readNumericTable(text, { growing });
-  return { header: t.header, columns: t.columns.map((c) => [...c.subarray(0, t.rows)]), lines: [...t.lines.subarray(0, t.rows)] };
-}
-
-function errorOf(f: () => unknown): string {
-  try {
-    f();
-  } catch (e) {
-    expect(e).toBeInstanceOf(TradeError);
-    return (e as Error).message;
-  }
-  throw new Error('no error');
-}
 
 // First in this file, so that the reader's memory of growing files starts empty.
 describe('growing files followed in turn', () => {
