@@ -13,7 +13,7 @@ import { TradeError } from './trade-error.js';
 export interface NumericTable {
   header: string[];
   delimiter: Delimiter;
-  /** One array per header column, each `rows` long. */
+  /** One array per header column; only its first `rows` items are the table (the rest is spare room for a growing file). */
   columns: Float64Array[];
   rows: number;
   /** Spreadsheet row number of each data row (the header is row 1; blank lines count). */
