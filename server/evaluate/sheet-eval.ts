@@ -91,7 +91,13 @@ export class EvalCache {
   /** Inline values given their uncertainty in the last run, so an unchanged one stays the same object. */
   inlineSpreads = new Map<string, { base: InlineResult; out: InlineResult }>();
   /** The last first-order propagation and check ranges, with what they were computed from. */
-  uncertainty?: { inputs: unknown[]; propagated: Map<string, Propagated>; ranges: Map<number, { nominal: boolean; source: string; verdict: RangeVerdict }> };
+  uncertainty?: {
+    inputs: unknown[];
+    propagated: Map<string, Propagated>;
+    ranges: Map<number, { nominal: boolean; source: string; verdict: RangeVerdict }>;
+    /** The sheet run again at x ± u(x), by input: first order computes them, inline values read them again. */
+    rows: Map<string, InputRows>;
+  };
 }
 
 export interface SheetEvaluation {
@@ -284,6 +290,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
   // First order, once every input and what it feeds has its value; the late forms read it.
   let uncertaintyBasis: unknown[] | undefined;
   const plans = new Map<string, ReturnType<typeof planRerun>>();
+  const movesMemo = new Map<string, ReadonlySet<string>>();
   const propagated = propagateSheet();
   const uncertaintyEnv = (scope: Scope, line: number): UncertaintyEnv => ({
     scope,
@@ -306,12 +313,15 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     }
   }
   const ranges = checkRanges();
-  const moved = movedByUncertainInputs();
   for (const r of results) {
     if (r.stmt.type === 'define') {
       const p = propagated.get(r.stmt.name);
       if (p && r.value && !r.uncertain) r.propagated = p;
-      if (r.value?.kind === 'list' && moved.has(r.stmt.name)) r.warnings = [...r.warnings, listWithoutSpread(r.stmt.name, moved.get(r.stmt.name)!)];
+      if (r.value?.kind === 'list' && !stopped) {
+        const name = r.stmt.name;
+        const by = uncertain.filter((i) => i.name !== name && movesOf(i).has(name)).map((i) => i.name);
+        if (by.length) r.warnings = [...r.warnings, listWithoutSpread(name, by)];
+      }
       if (r.uncertain) r.propagated = { u: r.uncertain.u, budget: [{ input: r.uncertain.name, u: r.uncertain.u, c: 1 }] };
     } else if (r.stmt.type === 'check' && r.passed !== undefined) {
       const range = ranges.get(r.stmt.line);
@@ -331,9 +341,10 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     if (uncertain.length === 0 || stopped) return new Map();
     uncertaintyBasis = [statements, ...sweepOrder.map((s) => values.get(s.name)), ...uncertain.flatMap((i) => [i.name, i.value, i.u])];
     if (cache.uncertainty && sameItems(cache.uncertainty.inputs, uncertaintyBasis)) return cache.uncertainty.propagated;
-    const propagated = guarded(() => firstOrder(uncertain, planOne, values), new Map<string, Propagated>());
-    cache.uncertainty = { inputs: uncertaintyBasis, propagated, ranges: new Map() };
-    return propagated;
+    const memo = { inputs: uncertaintyBasis, propagated: new Map<string, Propagated>(), ranges: new Map(), rows: new Map<string, InputRows>() };
+    cache.uncertainty = memo;
+    memo.propagated = guarded(() => firstOrder(uncertain, rowsFor, values), memo.propagated);
+    return memo.propagated;
   }
 
   /** Each check that depends on uncertain inputs, at the corners of their ±2u box. */
@@ -368,13 +379,11 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     const kept = cache.inlineSpreads;
     cache.inlineSpreads = new Map();
     if (uncertain.length === 0 || stopped) return;
-    let rows: InputRows[] | undefined;
     for (const item of opts.inline ?? []) {
       const base = inline.get(item.key);
       if (!item.expr || !base?.value || base.stale || base.value.kind !== 'quantity') continue;
       const names = namesUsed(item.expr).map((n) => n.name);
-      rows ??= guarded(() => uncertain.map((i) => inputRows(i, planOne(i.name))), []);
-      const u = guarded(() => expressionSpread(item.expr!, names, rows!), undefined);
+      const u = guarded(() => expressionSpread(item.expr!, names, uncertain, movesOf, rowsFor), undefined);
       if (u === undefined) continue;
       const before = kept?.get(item.key);
       const out = before && before.base === base && Object.is(before.out.u, u) ? before.out : { ...base, u };
@@ -383,12 +392,19 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     }
   }
 
-  /** Every definition downstream of an uncertain input, with the inputs that move it. */
-  function movedByUncertainInputs(): Map<string, string[]> {
-    const out = new Map<string, string[]>();
-    if (uncertain.length === 0 || stopped || !results.some((r) => r.value?.kind === 'list')) return out;
-    for (const i of uncertain) for (const s of planOne(i.name).downstream) out.set(s.name, [...(out.get(s.name) ?? []), i.name]);
-    return out;
+  /** An input's rows at x ± u(x), computed once for as long as the propagation they belong to stands. */
+  function rowsFor(input: UncertainInput): InputRows {
+    const rows = cache.uncertainty!.rows;
+    let r = rows.get(input.name);
+    if (!r) rows.set(input.name, (r = inputRows(input, planOne(input.name))));
+    return r;
+  }
+
+  /** The input and every name downstream of it. */
+  function movesOf(input: UncertainInput): ReadonlySet<string> {
+    let m = movesMemo.get(input.name);
+    if (!m) movesMemo.set(input.name, (m = new Set([input.name, ...planOne(input.name).downstream.map((s) => s.name)])));
+    return m;
   }
 
   function rerunEnv() {

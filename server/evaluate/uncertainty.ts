@@ -101,10 +101,10 @@ function numbersOf(v: Value | undefined): Map<string, number> | number | undefin
 }
 
 /**
- * u(y) for every result downstream of an uncertain input. `plan` gives the
- * rerun downstream of one input; `values` are the sheet's own.
+ * u(y) for every result downstream of an uncertain input. `rowsOf` gives the
+ * sheet run again at x ± u(x) for one input; `values` are the sheet's own.
  */
-export function firstOrder(inputs: readonly UncertainInput[], plan: (name: string) => Rerun, values: ReadonlyMap<string, Value>): Map<string, Propagated> {
+export function firstOrder(inputs: readonly UncertainInput[], rowsOf: (input: UncertainInput) => InputRows, values: ReadonlyMap<string, Value>): Map<string, Propagated> {
   /** Sensitivities by result (and field): input → c, or the words of a failure. */
   const slopes = new Map<string, Map<string, number>>();
   const fieldSlopes = new Map<string, Map<string, Map<string, number>>>();
@@ -113,8 +113,7 @@ export function firstOrder(inputs: readonly UncertainInput[], plan: (name: strin
   for (const input of inputs) {
     slopes.set(input.name, new Map([...(slopes.get(input.name) ?? []), [input.name, 1]]));
     if (input.u === 0) continue;
-    const rerun = plan(input.name);
-    const { up, down } = inputRows(input, rerun);
+    const { rerun, up, down } = rowsOf(input);
     for (const s of rerun.downstream) {
       const failed = up.errors.get(s.name) ?? down.errors.get(s.name);
       if (failed) {
@@ -168,22 +167,17 @@ export function propagatedAt(map: ReadonlyMap<string, Propagated>, name: string,
 
 /** Values of the sheet at x_i + u and x_i − u for one input, kept for whatever else asks (inline values). */
 export interface InputRows {
-  readonly input: UncertainInput;
   readonly rerun: Rerun;
   readonly up: RerunRow;
   readonly down: RerunRow;
-  /** The input and every name downstream of it. */
-  readonly moves: ReadonlySet<string>;
 }
 
 export function inputRows(input: UncertainInput, rerun: Rerun): InputRows {
   const x = input.value.si;
   return {
-    input,
     rerun,
     up: rerun.run(new Map([[input.name, moved(input.value, x + input.u)]])),
     down: rerun.run(new Map([[input.name, moved(input.value, x - input.u)]])),
-    moves: new Set([input.name, ...rerun.downstream.map((s) => s.name)]),
   };
 }
 
@@ -192,12 +186,13 @@ export function inputRows(input: UncertainInput, rerun: Rerun): InputRows {
  * the same law as the statements': undefined when no uncertain input moves it,
  * NaN when it cannot be evaluated at an end of an input's range.
  */
-export function expressionSpread(e: Expr, names: readonly string[], rows: readonly InputRows[]): number | undefined {
+export function expressionSpread(e: Expr, names: readonly string[], inputs: readonly UncertainInput[], movesOf: (input: UncertainInput) => ReadonlySet<string>, rowsOf: (input: UncertainInput) => InputRows): number | undefined {
   let sum = 0;
   let moves = false;
-  for (const r of rows) {
-    if (r.input.u === 0 || !names.some((n) => r.moves.has(n))) continue;
+  for (const input of inputs) {
+    if (input.u === 0 || !names.some((n) => movesOf(input).has(n))) continue;
     moves = true;
+    const r = rowsOf(input);
     let a: Value;
     let b: Value;
     try {

@@ -91,7 +91,8 @@ export class SheetPipeline {
     const own = parsed.flatMap((x) => (x.type === 'define' ? [x.name] : []));
     const origins = new Map(uses.origins);
     for (const name of own) origins.set(name, path ?? '');
-    this.lastRun = { values: evaluation.values, failed: new Set([...failedNames.keys(), ...failedDefinitions(evaluation.results)]), defined: new Set([...uses.defined, ...own]), origins, carried: carriedOf(evaluation, path ?? '', uses.imported, uses.uncarried) };
+    // What the names carry is asked only by a sheet that uses this one, whose run of it always passes the chain.
+    this.lastRun = { values: evaluation.values, failed: new Set([...failedNames.keys(), ...failedDefinitions(evaluation.results)]), defined: new Set([...uses.defined, ...own]), origins, carried: opts.chain ? carriedOf(evaluation, path ?? '', uses.imported, uses.uncarried) : NOTHING_CARRIED };
     // Only the sheet run first knows every sheet below it: it says which names to set are nowhere.
     const overrideErrors = [...set.errors, ...(opts.chain || opts.overridesElsewhere ? [] : unknownOverrides(opts.overrides, this.lastRun.defined))];
 

@@ -107,16 +107,15 @@ export function resolveUses(lines: readonly UseLine[], env: UseEnv): UsesOutcome
           fail(new SheetError('redefined', `\`${name}\` is defined in two sheets, ${rel(earlier)} and ${rel(origin)} (brought in on line ${first} and here); bring it in from one`, span));
           continue;
         }
+        out.origins.set(name, origin);
         const value = used.values.get(name);
         const spread = used.carried.spreads.get(name);
         const correlated = spread && correlatedWith(out.imported, name, spread);
         if (correlated) {
           fail(new SheetError('bad-argument', `\`${name}\` and \`${correlated.other}\` (line ${correlated.line}) both rest on the uncertain \`${correlated.source}\` of ${rel(correlated.sheet)}, so their uncertainties are correlated, which a use cannot carry; bring in \`${correlated.source}\` and compute \`${name}\` on this sheet`, span));
-          out.origins.set(name, origin);
           out.failedNames.set(name, line.line);
           continue;
         }
-        out.origins.set(name, origin);
         if (value) out.imported.set(name, { value, line: line.line, from: line.path, ...(spread ? { spread } : {}) });
         else out.failedNames.set(name, line.line);
         const why = used.carried.uncarried.get(name);
