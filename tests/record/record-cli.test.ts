@@ -27,9 +27,11 @@ function project() {
   return { dir, sheet, record: join(dir, 'pod-record.html') };
 }
 
-/** The record's html with its embedded data replaced, as a tampered copy would be. */
-function withRecordData(html: string, data: unknown): string {
-  return html.replace(/(<script type="application\/json" id="wakesheet-record">)[\s\S]*?(<\/script>)/, (_, a: string, b: string) => a + JSON.stringify(data).replace(/</g, '\\u003c') + b);
+/** `verify` run on a copy of the record whose embedded data is replaced, as a tampered copy would be. */
+function verifyAltered(dir: string, html: string, data: unknown) {
+  const altered = join(dir, 'altered-record.html');
+  writeFileSync(altered, html.replace(/(<script type="application\/json" id="wakesheet-record">)[\s\S]*?(<\/script>)/, (_, a: string, b: string) => a + JSON.stringify(data).replace(/</g, '\\u003c') + b));
+  return run(['verify', altered]);
 }
 
 describe('wakesheet verify', () => {
@@ -52,15 +54,12 @@ describe('wakesheet verify', () => {
     const data = readRecord(html)!;
     const tampered = structuredClone(data);
     tampered.values.Re!.display = '9.9×10⁵';
-    const altered = join(p.dir, 'altered-record.html');
-    writeFileSync(altered, withRecordData(html, tampered));
-    const value = await run(['verify', altered]);
+    const value = await verifyAltered(p.dir, html, tampered);
     expect(value.code).toBe(1);
     expect(value.stdout).toContain('differs: Re was 9.9×10⁵ and is 3.6×10⁵ now');
     tampered.values.Re!.display = data.values.Re!.display;
     tampered.sources[0]!.text = tampered.sources[0]!.text.replace('45 m/s', '46 m/s');
-    writeFileSync(altered, withRecordData(html, tampered));
-    const source = await run(['verify', altered]);
+    const source = await verifyAltered(p.dir, html, tampered);
     expect(source.code).toBe(1);
     expect(source.stdout).toContain('does not match its recorded SHA-256: the record was altered');
   });
@@ -75,9 +74,7 @@ describe('wakesheet verify', () => {
     expect(data.values.q).toMatchObject({ u: 4, uDisplay: '± 4 m' });
     const tampered = structuredClone(data);
     tampered.values.q!.uDisplay = '± 5 m';
-    const altered = join(p.dir, 'altered-record.html');
-    writeFileSync(altered, withRecordData(html, tampered));
-    const verified = await run(['verify', altered]);
+    const verified = await verifyAltered(p.dir, html, tampered);
     expect(verified.code).toBe(1);
     expect(verified.stdout).toContain('differs: the uncertainty of q was ± 5 m and is ± 4 m now');
     const csv = (await run(['export', p.sheet, '--csv'])).stdout.trim().split('\n');
