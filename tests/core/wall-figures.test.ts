@@ -7,6 +7,7 @@ import { binCount, histogramSvg } from '../../server/core/wall/histogram-svg.js'
 import { stackSvg } from '../../server/core/wall/stack-svg.js';
 import { px } from '../../server/core/shared/svg.js';
 
+// The geometry checked below is the picture's own (to scale by construction), not a published value.
 // Stack picture frame: the wall at y = 280, the top of the axis at y = 28; the stack from x = 84 to 250.
 const WALL = 280;
 const TOP = 28;
@@ -83,6 +84,7 @@ describe('wall-layer stack picture', () => {
 
 describe('y+ histogram', () => {
   it('uses about √n bins, at least 10 and at most 30', () => {
+    // The square-root choice of bin count (common practice); the bounds 10 and 30 are ours, for a picture that reads.
     expect(binCount(1)).toBe(10);
     expect(binCount(100)).toBe(10);
     expect(binCount(101)).toBe(11);
