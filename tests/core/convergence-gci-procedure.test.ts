@@ -86,7 +86,12 @@ describe('the asymptotic check and its warning', () => {
     expect(siField(same, 'ratio')).toBeCloseTo(1.0 / 0.98, 12);
     expect(same.remarks.join('\n')).toContain('With one refinement ratio for both pairs the ratio is φ1/φ2 exactly');
     const two = call('gci', { phi: nums([...TABLE1_PHI]), cells: nums(TABLE1_CELLS), dim: num(2) });
-    expect(two.remarks.join('\n')).not.toContain('With one refinement ratio');
+    expect(two.remarks.find((m) => m.startsWith('Asymptotic check'))).toBe(
+      `Asymptotic check: GCI32 ≈ r21^p GCI21, judged near 1 when the ratio is within ${ASYMPTOTIC_TOLERANCE * 100} % (our threshold; the paper asks only that it be close to 1).`,
+    );
+    // Ratios that agree to a part in 10⁹ of r21 count as one (r21 = 2, r32 = 2 + 1e-9: within 1e-9 × r21 = 2e-9).
+    const nearly = call('gci', { phi: nums([1.0, 0.98, 0.95]), h: nums([1, 2, 4 * (1 + 5e-10)]) });
+    expect(nearly.remarks.join('\n')).toContain('With one refinement ratio for both pairs');
   });
 
   it('flags oscillatory convergence from gci() itself (own case of convergence-gci.test.ts)', () => {

@@ -70,6 +70,22 @@ describe('wall-layer stack picture', () => {
     expect(lin).toMatch(/\d+ layer lines thinner than a pixel are not drawn separately/);
   });
 
+  it('stacks its notes at the foot of the picture, the log-axis note above the one on merged lines', () => {
+    // 300 layers of 10 µm on a log axis: the upper lines crowd closer than a pixel and are merged.
+    const both = stackSvg({ heights: Array.from({ length: 300 }, () => 1e-5), growth: 1, scale: 'log' });
+    const feet = texts(both).filter((t) => t.x === 8 && t.y > 280);
+    expect(feet.map((t) => [t.y, t.t.replace(/^\d+/, 'N')])).toEqual([
+      [298, 'log axis: the wall lies below its lowest tick'],
+      [312, 'N layer lines thinner than a pixel are not drawn separately'],
+    ]);
+    // One merged line is said in the singular: a first layer of exactly a decade has its top on the lowest tick, the wall line.
+    const one = stackSvg({ heights: [1e-5, 1e-4], growth: 10, scale: 'log' });
+    expect(one).toContain('>1 layer line thinner than a pixel is not drawn separately<');
+    // Two layers a decade apart: one line, nothing merged, the log note alone at the foot.
+    const alone = stackSvg({ heights: [2e-5, 2e-4], growth: 10, scale: 'log' });
+    expect(texts(alone).filter((t) => t.x === 8 && t.y > 280).map((t) => [t.y, t.t])).toEqual([[312, 'log axis: the wall lies below its lowest tick']]);
+  });
+
   it('labels the last layer when there is room, and drops that label rather than crowd the others', () => {
     const roomy = stackSvg({ heights: [1e-3, 4e-3], growth: 4, scale: 'linear' });
     expect(texts(roomy).map((t) => t.t)).toContain('last 4 mm');

@@ -2,7 +2,7 @@
 // boundary-layer edge drawn. A log axis shows the thin first layers that a
 // linear axis squeezes into the wall line.
 import { niceStep, px, svgDocument, text, verticalText } from '../shared/svg.js';
-import { lengthText, numberText } from '../shared/words.js';
+import { countText, lengthText, numberText } from '../shared/words.js';
 
 export type StackScale = 'linear' | 'log';
 
@@ -72,7 +72,7 @@ export function stackSvg(p: StackPicture): string {
   for (const l of placeLabels(labels)) body.push(text(RIGHT + 6, l.y, l.text, l.colour ? `fill="${l.colour}"` : ''));
   const heading = `${p.heights.length} layers, growth ${numberText(p.growth)} (${p.scale} scale)`;
   body.push(text(8, 16, heading, 'font-weight="bold"'));
-  const notes = [...(p.scale === 'log' ? ['log axis: the wall lies below its lowest tick'] : []), ...(skipped ? [`${skipped} layer lines thinner than a pixel are not drawn separately`] : [])];
+  const notes = [...(p.scale === 'log' ? ['log axis: the wall lies below its lowest tick'] : []), ...(skipped ? [`${countText(skipped, 'layer line')} thinner than a pixel ${skipped === 1 ? 'is' : 'are'} not drawn separately`] : [])];
   notes.forEach((n, i) => body.push(text(8, H - 8 - 14 * (notes.length - 1 - i), n, 'font-size="11"')));
   return svgDocument(W, H, `Wall-layer stack: ${heading}`, body);
 }
