@@ -96,6 +96,16 @@ describe('advice on α_u (common practice)', () => {
   });
 });
 
+describe('iterations per order of magnitude in the advice', () => {
+  it('are stated to two significant figures, in each reason that gives them', () => {
+    // A factor ρ per iteration falls one decade in −1/log10 ρ iterations (definition of the factor):
+    // ρ = 0.997 gives 766.4, shown as 770; ρ = 0.99 gives 229.1, shown as 230. Project wording around them.
+    expect(recommend('SIMPLE', 'converging', 0.997, 0.7).reason).toContain('at factor 0.997 (about 770 iterations per order of magnitude, more than 500)');
+    expect(recommend('PISO', 'converging', 0.997, 1).reason).toBe('the run converges slowly (about 770 iterations per order of magnitude), but α_u is already at 1');
+    expect(recommend('SIMPLE', 'converging', 0.99, 0.7).reason).toBe('the run converges at a fair rate (factor 0.99, about 230 iterations per order of magnitude): keep the factors');
+  });
+});
+
 describe('the factor refused by name', () => {
   it('names alpha_u when the present factor is outside 0 < α ≤ 1', () => {
     expect(() => undampedFactor(0.9, 1.5, 'monotone')).toThrow('alpha_u 1.5 is outside 0 < α ≤ 1');
