@@ -12,7 +12,7 @@ export interface PlottedColumn {
 }
 
 /** Points of one column (positive values only on a log axis), thinned to what a chart can show. */
-function points(iterations: Float64Array, values: Float64Array, upTo: number, positiveOnly: boolean): Array<[number, number]> {
+export function historyPoints(iterations: Float64Array, values: Float64Array, upTo: number, positiveOnly: boolean): Array<[number, number]> {
   // A value a log axis cannot show reads as NaN, which no bucket picks as its lowest or highest.
   const yAt = positiveOnly ? (k: number) => (values[k]! > 0 ? values[k]! : NaN) : (k: number) => values[k]!;
   const out: Array<[number, number]> = [];
@@ -21,7 +21,7 @@ function points(iterations: Float64Array, values: Float64Array, upTo: number, po
 }
 
 export function residualPlot(iterations: Float64Array, columns: readonly PlottedColumn[], windowStart: number): string {
-  const series: Series[] = columns.map((c) => ({ name: c.name, points: points(iterations, c.values, c.upTo, true) }));
+  const series: Series[] = columns.map((c) => ({ name: c.name, points: historyPoints(iterations, c.values, c.upTo, true) }));
   return linePlot({
     title: 'Residuals',
     x: { label: 'iteration' },
@@ -48,7 +48,7 @@ export function monitorPlot(iterations: Float64Array, column: string, values: Fl
     title: `${column} over the run (window mean ${numberText(mean, { digits: 4 })})`,
     x: { label: 'iteration' },
     y: { label: column },
-    series: [{ name: column, points: points(iterations.subarray(from), values.subarray(from), values.length - from, false) }],
+    series: [{ name: column, points: historyPoints(iterations.subarray(from), values.subarray(from), values.length - from, false) }],
     references,
   });
 }

@@ -50,7 +50,7 @@ export const PALETTE = ['#1f5fa8', '#c0392b', '#2e7d32', '#8e44ad', '#d35400', '
 
 const MARGIN = { left: 64, right: 16, top: 30, bottom: 46 };
 /** At most this many points per series are drawn; longer series are thinned evenly (min and max of each bucket kept). */
-const MAX_POINTS = 1200;
+export const MAX_POINTS = 1200;
 
 interface Mapped {
   at(v: number): number;
