@@ -7,7 +7,7 @@
 // monitor's remark texts are project wording.
 import { describe, expect, it } from 'vitest';
 import { num, str } from '../../server/core/index.js';
-import { call, historyCsv, range } from './convergence-helpers.js';
+import { call, firstSeriesPoints, historyCsv, range } from './convergence-helpers.js';
 
 const PATH = 'data/run.csv';
 
@@ -28,12 +28,6 @@ function axisFromTicks(svg: string, axis: 'x' | 'y'): (pixel: number) => number 
 function referenceLines(svg: string, colour: string): number[] {
   const re = new RegExp(`<path d="M([\\d.]+) ([\\d.]+)([VH])[\\d.]+" stroke="${colour}" stroke-width="1" stroke-dasharray="5 3"`, 'g');
   return [...svg.matchAll(re)].map((m) => Number(m[3] === 'V' ? m[1] : m[2]));
-}
-
-/** Number of points in the first series' line. */
-function firstSeriesPoints(svg: string): number {
-  const d = /<path d="(M[^"]+)" stroke="#1f5fa8" stroke-width="1.4"/.exec(svg)![1]!;
-  return d.split('L').length;
 }
 
 describe('the residual plot', () => {

@@ -7,7 +7,7 @@
 // the value refused.
 import { describe, expect, it } from 'vitest';
 import { list, num, shown, str } from '../../server/core/index.js';
-import { call, historyCsv, range } from './convergence-helpers.js';
+import { call, historyCsv, numArgs, range } from './convergence-helpers.js';
 
 const PATH = 'data/run.csv';
 const falling = historyCsv(range(1, 300), { p: (n) => Math.pow(0.99, n) });
@@ -16,7 +16,7 @@ const settled = historyCsv(range(1, 1000), { Cd: (n) => 0.32 + 0.001 * Math.sin(
 describe('residuals(…) options', () => {
   it('refuses a target drop, a window or an initial count of zero or below, by name', () => {
     const residuals = (extra: Record<string, number>) => () =>
-      call('residuals', { path: str(PATH), ...Object.fromEntries(Object.entries(extra).map(([k, v]) => [k, num(v)])) }, { [PATH]: falling });
+      call('residuals', { path: str(PATH), ...numArgs(extra) }, { [PATH]: falling });
     expect(residuals({ target_drop: 0 })).toThrow('target_drop must be above zero, not 0');
     expect(residuals({ target_drop: -2 })).toThrow('target_drop must be above zero, not −2');
     expect(residuals({ window: -50 })).toThrow('window must be above zero, not −50');
@@ -27,7 +27,7 @@ describe('residuals(…) options', () => {
 
 describe('monitor(…) options', () => {
   const monitor = (extra: Record<string, number>) => () =>
-    call('monitor', { path: str(PATH), ...Object.fromEntries(Object.entries(extra).map(([k, v]) => [k, num(v)])) }, { [PATH]: settled });
+    call('monitor', { path: str(PATH), ...numArgs(extra) }, { [PATH]: settled });
 
   it('refuses a window, a tolerance or a scale of zero or below, by name', () => {
     expect(monitor({ window: 0 })).toThrow('window must be above zero, not 0');

@@ -1,7 +1,7 @@
 // Shared pieces for the convergence tests: calling the family's entries with a
 // context whose data files come from a map, reading record fields and table
 // rows, and writing synthetic histories as CSV text.
-import { createRegistry, type Args, type Quantity, type RecordValue, type TradeFunction, type Value } from '../../server/core/index.js';
+import { createRegistry, num, type Args, type Quantity, type RecordValue, type TradeFunction, type Value } from '../../server/core/index.js';
 import { convergenceEntries } from '../../server/core/convergence/entries.js';
 import { evaluate } from '../../server/evaluate/interpreter.js';
 import { Budget, DEFAULT_LIMITS } from '../../server/evaluate/limits.js';
@@ -103,4 +103,14 @@ export function range(from: number, to: number, step = 1): number[] {
 
 export function relErr(actual: number, expected: number): number {
   return Math.abs(actual - expected) / Math.abs(expected);
+}
+
+/** Plain-number arguments of a call (window, tol, …) as values. */
+export function numArgs(extra: Record<string, number>): Record<string, Value> {
+  return Object.fromEntries(Object.entries(extra).map(([k, v]) => [k, num(v)]));
+}
+
+/** Number of points in the first series' line of a figure (plot.ts draws it in the first palette colour). */
+export function firstSeriesPoints(svg: string): number {
+  return /<path d="(M[^"]+)" stroke="#1f5fa8" stroke-width="1.4"/.exec(svg)![1]!.split('L').length;
 }

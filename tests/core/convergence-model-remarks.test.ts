@@ -10,7 +10,7 @@ import { num, record, str, type RecordValue, type Value } from '../../server/cor
 import { call, historyCsv, range, siField, textField } from './convergence-helpers.js';
 
 /** A residuals record as relaxation(…) reads it: the run's verdict, its worst field and that field's factor. */
-function runRecord(verdict: string, factor: number, worst = 'p'): RecordValue {
+function historyRecord(verdict: string, factor: number, worst = 'p'): RecordValue {
   return record([
     ['verdict', str(verdict)],
     ['worst', str(worst)],
@@ -32,7 +32,7 @@ function rangeRemark(r: RecordValue): string {
 describe('the estimate remark, number by number', () => {
   it('a slow monotone run at α_u 0.7, raised to 0.8', () => {
     // ρ = 0.997 at α 0.7, monotone: λ = 1 − (1 − 0.997)/0.7 = 0.995714…; at α 0.8: 1 − 0.8 × 0.0042857 = 0.996571…
-    const r = relax(0.7, runRecord('converging', 0.997));
+    const r = relax(0.7, historyRecord('converging', 0.997));
     expect(siField(r, 'lambda')).toBeCloseTo(1 - 0.003 / 0.7, 12);
     expect(siField(r, 'next_factor')).toBeCloseTo(1 - (0.8 * 0.003) / 0.7, 12);
     // Project wording: the model, the measured factor with its field and α_u, the sign taken, λ to 4 digits, the factor at the new α_u.
@@ -48,7 +48,7 @@ describe('the estimate remark, number by number', () => {
 
   it('an alternating error is taken as −ρ and named so', () => {
     // ρ = 0.5 at α 0.5, alternating: 1 − 0.5 (1 − λ) = −0.5 gives λ = −2.
-    const r = relax(0.5, runRecord('converging', 0.5, 'Ux'), { mode: str('alternating') });
+    const r = relax(0.5, historyRecord('converging', 0.5, 'Ux'), { mode: str('alternating') });
     expect(siField(r, 'lambda')).toBeCloseTo(-2, 12);
     expect(r.remarks.join('\n')).toContain('The measured factor ρ = 0.5 of Ux at α_u 0.5, taken as 1 − α (1 − λ) = −ρ (alternating), gives λ = −2,');
     // Alternating errors have λ = 1 − (1 + ρ)/α ≤ 0: never the growth the warning is about.
@@ -59,7 +59,7 @@ describe('the estimate remark, number by number', () => {
 describe('the stable range of α_u in the model', () => {
   it('λ above 1: no α brings the factor below 1, and the warning says so', () => {
     // ρ = 1.01 at α 0.7, monotone: λ = 1 + 0.01/0.7 = 1.0142857…
-    const r = relax(0.7, runRecord('diverging', 1.01));
+    const r = relax(0.7, historyRecord('diverging', 1.01));
     expect(siField(r, 'lambda')).toBeCloseTo(1 + 0.01 / 0.7, 12);
     expect(rangeRemark(r)).toBe('In this model no α makes the factor fall below 1.');
     // Project wording: λ to 4 digits, and what to look at instead.
@@ -70,42 +70,42 @@ describe('the stable range of α_u in the model', () => {
 
   it('λ exactly 1: the factor is 1 at every α, so the warning stands', () => {
     // ρ = 1 monotone: λ = 1 − 0/α = 1, and 1 − α (1 − 1) = 1 for every α.
-    const r = relax(0.7, runRecord('stalled', 1));
+    const r = relax(0.7, historyRecord('stalled', 1));
     expect(siField(r, 'lambda')).toBe(1);
     expect(rangeRemark(r)).toBe('In this model no α makes the factor fall below 1.');
     expect(r.warnings.join(' ')).toMatch(/λ = 1 ≥ 1\): under-relaxation only slows the growth, no factor stops it/);
   });
 
   it('λ between 0 and 1: every α_u up to 1 converges, the larger the faster', () => {
-    const r = relax(0.7, runRecord('converging', 0.997));
+    const r = relax(0.7, historyRecord('converging', 0.997));
     expect(rangeRemark(r)).toBe('In this model every α_u up to 1 converges, and the larger α_u the faster.');
     expect(r.warnings).toEqual([]);
   });
 
   it('λ exactly 0: fastest at α_u = 1 itself, still "the larger the faster"', () => {
     // ρ = 0.5 at α 0.5, monotone: λ = 1 − 0.5/0.5 = 0, so the factor is 1 − α, zero at α = 1.
-    const r = relax(0.5, runRecord('converging', 0.5));
+    const r = relax(0.5, historyRecord('converging', 0.5));
     expect(siField(r, 'lambda')).toBe(0);
     expect(rangeRemark(r)).toBe('In this model every α_u up to 1 converges, and the larger α_u the faster.');
   });
 
   it('λ between −1 and 0: every α_u up to 1 converges, fastest below 1', () => {
     // ρ = 0.05 at α 0.7, alternating: λ = 1 − 1.05/0.7 = −0.5; 2/(1 − λ) = 4/3 > 1, fastest at 1/1.5 = 0.667, shown to 2 digits.
-    const r = relax(0.7, runRecord('converged', 0.05), { mode: str('alternating') });
+    const r = relax(0.7, historyRecord('converged', 0.05), { mode: str('alternating') });
     expect(siField(r, 'lambda')).toBeCloseTo(-0.5, 12);
     expect(rangeRemark(r)).toBe('In this model every α_u up to 1 converges, fastest near 0.67.');
   });
 
   it('λ exactly −1: the limit is α_u = 1 itself, which does not converge', () => {
     // ρ = 0.5 at α 0.75, alternating: λ = 1 − 1.5/0.75 = −1; at α = 1 the factor is |1 − 2| = 1.
-    const r = relax(0.75, runRecord('converging', 0.5), { mode: str('alternating') });
+    const r = relax(0.75, historyRecord('converging', 0.5), { mode: str('alternating') });
     expect(siField(r, 'lambda')).toBe(-1);
     expect(rangeRemark(r)).toBe('In this model the iteration converges for α_u below 1, fastest near 0.5.');
   });
 
   it('λ below −1: converges only below 2/(1 − λ), fastest at 1/(1 − λ)', () => {
     // λ = −2: limit 2/3 (3 digits: 0.667), fastest at 1/3 (2 digits: 0.33).
-    const r = relax(0.5, runRecord('converging', 0.5), { mode: str('alternating') });
+    const r = relax(0.5, historyRecord('converging', 0.5), { mode: str('alternating') });
     expect(rangeRemark(r)).toBe('In this model the iteration converges for α_u below 0.667, fastest near 0.33.');
   });
 });
@@ -139,7 +139,7 @@ describe('reading the history record', () => {
 
   it('takes each known verdict, and says "the worst field" when the record names none', () => {
     for (const verdict of ['converged', 'converging', 'stalled', 'oscillating', 'diverging']) {
-      expect(() => relax(0.7, runRecord(verdict, 0.99))).not.toThrow();
+      expect(() => relax(0.7, historyRecord(verdict, 0.99))).not.toThrow();
     }
     const r = relax(0.7, record([['verdict', str('converging')], ['factor', num(0.99)]]));
     // Project wording: the note names whose factor was measured.

@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { assessField, verdictRules, type ResidualOptions } from '../../server/core/convergence/residual-history.js';
 import { historyPoints, monitorPlot, residualPlot } from '../../server/core/convergence/history-plots.js';
 import { MAX_POINTS } from '../../server/core/shared/plot.js';
+import { firstSeriesPoints } from './convergence-helpers.js';
 
 const OPTS: ResidualOptions = { targetDrop: 4, window: 200, initialCount: 5 };
 
@@ -157,15 +158,13 @@ describe('the points a history figure draws', () => {
     expect(historyPoints(iterations.subarray(0, 4), values.subarray(0, 4), 4, true)).toEqual([[1, values[0]], [3, values[2]]]);
     // The residual figure thins the positive values only, so its line keeps the full point budget.
     const svg = residualPlot(iterations, [{ name: 'p', values, upTo: n }], n - 200);
-    expect(/<path d="(M[^"]+)" stroke="#1f5fa8"/.exec(svg)![1]!.split('L').length).toBe(MAX_POINTS);
+    expect(firstSeriesPoints(svg)).toBe(MAX_POINTS);
   });
 
   it('a monitor keeps its spike when thinned, and the drawn line has the full point budget', () => {
     const values = iterations.map((i) => (i === 5000 ? 2 : 0.3));
     expect(historyPoints(iterations, values, n, false)).toContainEqual([5000, 2]);
     // Three windows of n/6 back from the end: the last half of the run, still longer than the budget.
-    const svg = monitorPlot(iterations, 'Cd', values, n / 6, n - n / 6, 0.3, 0.003, 0.01);
-    const path = /<path d="(M[^"]+)" stroke="#1f5fa8"/.exec(svg)![1]!;
-    expect(path.split('L').length).toBe(MAX_POINTS);
+    expect(firstSeriesPoints(monitorPlot(iterations, 'Cd', values, n / 6, n - n / 6, 0.3, 0.003, 0.01))).toBe(MAX_POINTS);
   });
 });
