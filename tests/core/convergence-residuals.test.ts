@@ -5,7 +5,7 @@
 // the drop and the remaining iterations are known exactly. The verdict
 // thresholds are the project's own; each history sits clearly on one side.
 import { describe, expect, it } from 'vitest';
-import { num, str, TradeError } from '../../server/core/index.js';
+import { str, TradeError } from '../../server/core/index.js';
 import { call, firstSeriesPoints, historyCsv, numArgs, range, relErr, siField, tableRows, textField } from './convergence-helpers.js';
 
 const PATH = 'data/run.csv';
