@@ -178,6 +178,8 @@ describe('cell budget warnings', () => {
     expect(() => call('cell_budget', { domain: si(1000, 'm^3'), base: si(1, 'm'), zones: { kind: 'list', items: [surface] } })).toThrow(/pass it as surface:/);
     const box = zoneRec({ box: metres(1, 1, 1), level: num(1) });
     expect(() => call('cell_budget', { domain: si(1000, 'm^3'), base: si(1, 'm'), surface: box })).toThrow(/surface must be the surface band/);
+    // A record that is not a zone at all is named by the argument it was given as.
+    expect(() => call('cell_budget', { domain: si(1000, 'm^3'), base: si(1, 'm'), surface: { ...zoneRec({ area: si(10, 'm^2'), level: num(3) }), tag: 'fluid' } })).toThrow(/^surface is not a zone; make one with zone\(/);
     expect(() => call('cell_budget', { domain: si(1000, 'm^3'), base: si(1, 'm'), zones: { kind: 'list', items: [num(3)] } })).toThrow(TradeError);
     expect(() => call('cell_budget', { domain: si(1000, 'm^2'), base: si(1, 'm') })).toThrow(/domain must be in m\^3/);
   });
