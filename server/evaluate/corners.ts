@@ -39,11 +39,15 @@ export function checkOverRange(line: number, nominal: boolean, inputs: readonly 
   const tried = points(inputs);
   const corners = tried[0]?.corners ?? true;
   let failedAt: Map<string, Value> | undefined;
+  let heldAt: Map<string, Value> | undefined;
   let failures = 0;
   let cannot: Diagnostic | undefined;
   for (const p of tried) {
     const outcome = rerun.run(p.changes).checks.get(line);
-    if (outcome === true) continue;
+    if (outcome === true) {
+      heldAt ??= p.changes;
+      continue;
+    }
     failures++;
     if (outcome === false || outcome === undefined) failedAt ??= p.changes;
     else cannot ??= outcome;
@@ -54,6 +58,9 @@ export function checkOverRange(line: number, nominal: boolean, inputs: readonly 
   const at = nominal ? 'holds at nominal' : 'fails at nominal';
   if (failures === 0) return { holds: true, text: `${at}${nominal ? ' and' : ', holds'} at ${all}` };
   const label = (m: Map<string, Value>) => [...m].map(([n, v]) => `${n} = ${valueWords(v)}`).join(', ');
-  const fails = failedAt ? `fails at ${label(failedAt)}` : `cannot run at one point (line ${cannot!.line}: ${cannot!.message})`;
-  return { holds: false, text: `${at}, ${fails} (${some})` };
+  if (!failedAt) return { holds: false, text: `${at}, cannot run at one point (line ${cannot!.line}: ${cannot!.message}) (${some})` };
+  // Failing at nominal and at a point: say so once, and name a point where it holds,
+  // which tells the reader which way the inputs must move.
+  if (!nominal) return { holds: false, text: `fails at nominal and at ${label(failedAt)} (${some})${heldAt ? `; holds at ${label(heldAt)}` : ''}` };
+  return { holds: false, text: `${at}, fails at ${label(failedAt)} (${some})` };
 }

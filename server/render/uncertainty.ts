@@ -27,6 +27,15 @@ export function uncertaintyText(q: Quantity, u: number, sig: number): string {
   return `± ${shownPlain({ ...formatNumber(u / factor, U_DIGITS), unit })}`;
 }
 
+/**
+ * Whether a spread is shown beside a value: a field that depends on no uncertain
+ * input (a growth ratio given on the sheet, say) has u = 0 and shows none, on the
+ * page and in text output alike.
+ */
+export function showsSpread(u: number): boolean {
+  return u !== 0;
+}
+
 export interface UncertaintyView {
   u: number;
   /** Set for an input: how its uncertainty was given. */

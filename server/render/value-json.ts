@@ -4,7 +4,7 @@
 import type { ListValue, RecordValue, Value } from '../core/index.js';
 import { unitLabel } from '../units/labels.js';
 import { displayKey } from './numbers.js';
-import { uncertaintyText } from './uncertainty.js';
+import { showsSpread, uncertaintyText } from './uncertainty.js';
 import { displayText } from './value-text.js';
 
 /** A value as `wakesheet eval --json` and the library hand it on. */
@@ -47,7 +47,7 @@ export function withUncertainty(json: ValueJson, unc: UncertaintyJson | undefine
   if (!unc) return json;
   const out: ValueJson = { ...json };
   const spread = (j: ValueJson, v: Value | undefined, u: number): ValueJson =>
-    j.si !== null && Number.isFinite(u) ? { ...j, u, ...(v?.kind === 'quantity' ? { uDisplay: uncertaintyText(v, u, sig) } : {}) } : j;
+    j.si !== null && Number.isFinite(u) ? { ...j, u, ...(v?.kind === 'quantity' && showsSpread(u) ? { uDisplay: uncertaintyText(v, u, sig) } : {}) } : j;
   if (unc.u !== undefined) Object.assign(out, spread(json, value, unc.u));
   if (unc.fields && json.fields && value.kind === 'record') {
     const fields: Record<string, ValueJson> = { ...json.fields };

@@ -6,7 +6,7 @@ import { mathHtml } from './katex.js';
 import { showQuantity, shownLatex, shownPlain, unitPlain } from './numbers.js';
 import { recordListHtml, tableHtml } from './tables.js';
 import { dataAttrs, displayText } from './value-text.js';
-import { uncertaintyHtml } from './uncertainty.js';
+import { showsSpread, uncertaintyHtml } from './uncertainty.js';
 
 /** Standard uncertainties of a record's fields (SI), shown beside their values (a field the inputs do not move shows none). */
 export type FieldUncertainties = ReadonlyMap<string, { readonly u: number }>;
@@ -46,7 +46,7 @@ function recordHtml(name: string, r: RecordValue, sig: number, fieldsU?: FieldUn
     if (v.kind === 'quantity') {
       const s = showQuantity(v, sig);
       const fu = fieldsU?.get(field);
-      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(shownPlain({ ...s, unit: '' }))}</span>${fu && fu.u !== 0 ? ` ${uncertaintyHtml(v, fu, sig)}` : ''}`;
+      value = `<span class="ws-value"${dataAttrs(`${name}.${field}`, v)}>${escapeHtml(shownPlain({ ...s, unit: '' }))}</span>${fu && showsSpread(fu.u) ? ` ${uncertaintyHtml(v, fu, sig)}` : ''}`;
       unit = s.unit === '%' ? '%' : escapeHtml(unitPlain(s.unit));
     } else if (v.kind === 'figure' || v.kind === 'record' || v.kind === 'list') {
       value = valueHtml(`${name}.${field}`, v, sig);

@@ -109,6 +109,19 @@ describe('first-order propagation', () => {
   });
 });
 
+describe('fields that depend on no uncertain input', () => {
+  it('carry u = 0 in the JSON and show no spread in text, as on the page', async () => {
+    const r = await sheet(['U = 10 m/s ± 1 m/s', 'stack = layer_stack(first: U * 1 us, growth: 1.2, count: 10)']);
+    expect(r.errors).toEqual([]);
+    const fields = r.values['stack']!.fields!;
+    expect(fields['growth']).toMatchObject({ u: 0 });
+    expect(fields['growth']!.uDisplay).toBeUndefined();
+    // first = U × 1 µs: 10 µm ± 1 µm.
+    expect(fields['first']!.uDisplay).toBe('± 1 µm');
+    expect(r.html).not.toMatch(/>± 0[ <]/);
+  });
+});
+
 describe('checks over the range', () => {
   it('holds at nominal and fails only at a corner of the ±2u box', async () => {
     // y = a + b is 10 m at nominal and 10.8 m at the corner (+2u, +2u); one input at its end alone gives 10.4 m.
@@ -119,6 +132,13 @@ describe('checks over the range', () => {
     // Each end alone (5.4 + 5 = 10.4 m) passes: only the corner fails.
     const one = await sheet(['a = 5 m ± 0.2 m', 'b = 5 m', 'y = a + b', 'check y < 10.7 m "short enough"']);
     expect(one.checks[0]!.range).toEqual({ holds: true, text: 'holds at nominal and at both ends of the ±2u range' });
+  });
+
+  it('failing at nominal, names once where it fails and where it holds', async () => {
+    // y = a + 5 m is 10 m at nominal, 9.6 m at a − 2u and 10.4 m at a + 2u: only the upper end clears 10.2 m.
+    const r = await sheet(['a = 5 m ± 0.2 m', 'y = a + 5 m', 'check y > 10.2 m "long enough"']);
+    expect(r.checks[0]!.passed).toBe(false);
+    expect(r.checks[0]!.range).toEqual({ holds: false, text: 'fails at nominal and at a = 4.6 m (1 of the 2 ends of the ±2u range); holds at a = 5.4 m' });
   });
 });
 
