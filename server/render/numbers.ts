@@ -41,13 +41,13 @@ function roundSig(x: number, sig: number): number {
   return Number(x.toPrecision(sig));
 }
 
-/** Split x into mantissa text and power of ten, with `sig` significant figures. */
-export function formatNumber(x: number, sig: number): { mantissa: string; exponent: number } {
+/** Split x into mantissa text and power of ten, with `sig` significant figures; `scientific` always uses a power. */
+export function formatNumber(x: number, sig: number, scientific = false): { mantissa: string; exponent: number } {
   if (x === 0) return { mantissa: '0', exponent: 0 };
   if (!Number.isFinite(x)) return { mantissa: String(x), exponent: 0 };
   const r = roundSig(x, sig);
   const exp = Math.floor(Math.log10(Math.abs(r)));
-  if (exp >= 5 || exp < -3) {
+  if (scientific || exp >= 5 || exp < -3) {
     const m = roundSig(r / Math.pow(10, exp), sig);
     return { mantissa: trimZeros(m.toPrecision(sig)), exponent: exp };
   }

@@ -24,7 +24,8 @@ export function uncertaintyText(q: Quantity, u: number, sig: number): string {
     }
   }
   const unit = shown.unit.startsWith('deg') ? `delta_${shown.unit}` : shown.unit;
-  return `± ${shownPlain({ ...formatNumber(u / factor, U_DIGITS), unit })}`;
+  // Beside a value in powers of ten the spread is too ("1.8×10⁵ ± 1.5×10⁴", not "± 15000").
+  return `± ${shownPlain({ ...formatNumber(u / factor, U_DIGITS, shown.exponent !== 0), unit })}`;
 }
 
 /**

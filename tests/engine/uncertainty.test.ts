@@ -122,6 +122,14 @@ describe('fields that depend on no uncertain input', () => {
   });
 });
 
+describe('the spread of a value shown in powers of ten', () => {
+  it('is shown in powers of ten too', async () => {
+    // Re = U L / ν = 1.8e5 with U ± 5 %: u = 9000, two digits (JCGM 100:2008 §7.2.6).
+    const r = await sheet(['U = 18 m/s ± 5 %', 'Re = U * 1 m / (1e-4 m^2/s)']);
+    expect(r.values['Re']).toMatchObject({ display: '1.8×10⁵', uDisplay: '± 9×10³' });
+  });
+});
+
 describe('checks over the range', () => {
   it('holds at nominal and fails only at a corner of the ±2u box', async () => {
     // y = a + b is 10 m at nominal and 10.8 m at the corner (+2u, +2u); one input at its end alone gives 10.4 m.
