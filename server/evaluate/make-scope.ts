@@ -6,6 +6,7 @@ import { parseExpression } from '../parse/index.js';
 import { evaluate } from './interpreter.js';
 import type { Budget } from './limits.js';
 import { CONSTANTS, type Scope } from './scope.js';
+import { unknownName } from './unknown-name.js';
 
 export interface ScopeParts {
   registry: Registry;
@@ -39,7 +40,7 @@ export function makeScope(parts: ScopeParts): Scope {
 export function sheetLookup(values: ReadonlyMap<string, Value>): Scope['lookup'] {
   return (name, span) => {
     const v = values.get(name) ?? CONSTANTS.get(name);
-    if (!v) throw new SheetError('unknown-name', `\`${name}\` is not defined (line ${span.line})`, span);
+    if (!v) throw unknownName(name, span, [...values.keys(), ...CONSTANTS.keys()]);
     return v;
   };
 }

@@ -3,6 +3,7 @@
 // sheet's own values for everything else. Sweeps use it (a row per value),
 // and so can anything that asks how the sheet moves with an input.
 import { diagnostic, SheetError, type Diagnostic } from '../diagnostics.js';
+import { unknownName } from './unknown-name.js';
 import type { CallContext, Registry, Value } from '../core/index.js';
 import type { Expr, Statement } from '../parse/ast.js';
 import { evaluate } from './interpreter.js';
@@ -90,7 +91,7 @@ export function planRerun(
       lookup: (name, span) => {
         if (failed.has(name)) throw new SheetError('not-evaluated', `waits on ${name}, which failed in this run`, span);
         const v = values.get(name) ?? base.get(name) ?? CONSTANTS.get(name);
-        if (!v) throw new SheetError('unknown-name', `\`${name}\` is not defined (line ${span.line})`, span);
+        if (!v) throw unknownName(name, span, [...values.keys(), ...base.keys(), ...CONSTANTS.keys()]);
         return v;
       },
     });

@@ -8,6 +8,7 @@ import { evaluate } from './interpreter.js';
 import { namesUsed, orderDefinitions, type NameUse } from './graph.js';
 import { evaluateInline, type InlineCacheEntry, type InlineExpr, type InlineResult } from './inline.js';
 import { Budget, BudgetError, DEFAULT_LIMITS, type Limits } from './limits.js';
+import { unknownName } from './unknown-name.js';
 import { makeScope, sheetLookup } from './make-scope.js';
 import { sameItems } from './memo.js';
 import { CONSTANTS, type Scope } from './scope.js';
@@ -181,7 +182,7 @@ export function evaluateSheet(statements: readonly Statement[], opts: EvalOption
     }
     for (const u of nameUsesOf(r.stmt)) {
       if (defs.has(u.name) || CONSTANTS.has(u.name) || broken.has(u.name) || imported.has(u.name)) continue;
-      r.error = diagnostic(new SheetError('unknown-name', `\`${u.name}\` is not defined (line ${u.span.line})`, u.span), r.stmt.line);
+      r.error = diagnostic(unknownName(u.name, u.span, [...defs.keys(), ...imported.keys(), ...CONSTANTS.keys()]), r.stmt.line);
       return;
     }
     const clash = unitNameClash(r.stmt.expr, defined);

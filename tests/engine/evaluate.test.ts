@@ -31,6 +31,11 @@ describe('dependency order', () => {
     expect(r.errors).toEqual([{ line: 3, column: 5, message: '`L_ref` is not defined (line 3)', code: 'unknown-name' }]);
   });
 
+  it('names the nearest defined name when a name is mistyped', async () => {
+    const r = await sheet(['D_strut = 0.14 m', 'A = D_strt * 2 m']);
+    expect(r.errors).toEqual([{ line: 3, column: 5, message: '`D_strt` is not defined (line 3); did you mean `D_strut`?', code: 'unknown-name' }]);
+  });
+
   it('marks everything downstream of a failure as not evaluated, naming the root', async () => {
     const r = await sheet(['bad = 12 m/s + 3 Pa', 'twice = bad * 2', 'thrice = twice * 3 / 2', 'ok = 5 m']);
     expect(r.errors).toHaveLength(1);

@@ -78,10 +78,10 @@ export function nounFor(n: number, singular: string, plural = `${singular}s`): s
   return n === 1 ? singular : plural;
 }
 
-/** The option nearest to `word` by edit distance (at most 2 edits, case ignored), for "did you mean" hints. */
-export function nearestWord(word: string, options: readonly string[]): string | undefined {
+/** The option nearest to `word` by edit distance (at most `maxEdits`, case ignored), for "did you mean" hints. */
+export function nearestWord(word: string, options: readonly string[], maxEdits = 2): string | undefined {
   let best: string | undefined;
-  let bestD = 3;
+  let bestD = maxEdits + 1;
   for (const o of options) {
     const d = editDistance(word.toLowerCase(), o.toLowerCase());
     if (d < bestD) {
