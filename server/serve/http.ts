@@ -4,7 +4,7 @@
 // refused before any route runs.
 import path from 'node:path';
 import express, { type NextFunction, type Request, type Response } from 'express';
-import { indexPage, sheetPage } from './pages.js';
+import { indexPage, missingSheetPage, sheetPage } from './pages.js';
 import { ALLOWED_METHODS, checkSheetPath, resolveSheetFile, SECURITY_HEADERS, SheetPathError, type HostPolicy } from './security.js';
 import { katexDistDir, packageRoot } from '../read/paths.js';
 import type { SheetStore } from './store.js';
@@ -83,7 +83,7 @@ export function createApp(context: AppContext): express.Express {
 /** The sheet a request's path names, once every check holds; null (after a 404) otherwise. */
 async function requestedSheet(context: AppContext, req: Request, res: Response): Promise<string | null> {
   const notFound = () => {
-    res.status(404).type('text/plain').send('No such sheet in this folder.\n');
+    sendMissingSheet(context, req, res);
     return null;
   };
   let sheet: string;
@@ -124,14 +124,23 @@ async function serveRecord(context: AppContext, req: Request, res: Response): Pr
 async function serveSheet(context: AppContext, req: Request, res: Response): Promise<void> {
   const sheet = await requestedSheet(context, req, res);
   if (sheet === null) return;
-  const notFound = () => res.status(404).type('text/plain').send('No such sheet in this folder.\n');
   const { store } = context;
   const update = store.complete(sheet);
   if (!update) {
-    notFound();
+    sendMissingSheet(context, req, res);
     return;
   }
   res.type('html').set('Cache-Control', 'no-store').send(sheetPage(update));
+}
+
+function sendMissingSheet(context: AppContext, req: Request, res: Response): void {
+  let asked: string;
+  try {
+    asked = decodeURIComponent(req.path.replace(/^\//, ''));
+  } catch {
+    asked = req.path.replace(/^\//, '');
+  }
+  res.status(404).type('html').set('Cache-Control', 'no-store').send(missingSheetPage(context.folderName, asked, context.store.index()));
 }
 
 function delay(ms: number): Promise<void> {

@@ -5,6 +5,7 @@
 // file system or the front matter and lands here is escaped. Scripts load
 // from /assets only.
 import { countText, escapeHtml } from '../core/index.js';
+import { nearestWord } from '../core/shared/words.js';
 import type { IndexEntry, SheetCondition, SheetUpdate } from './protocol.js';
 
 /** URL of a sheet's page, each path segment encoded. */
@@ -102,6 +103,26 @@ ${indexRowsHtml(entries)}
 </tbody>
 </table>
 <p class="live-empty"${entries.length ? ' hidden' : ''}>No .md sheets in this folder yet. Add one and it appears here.</p>
+</main>
+</body>
+</html>
+`;
+}
+
+/**
+ * The page for an address that names no sheet here (a typo, a sheet renamed or
+ * deleted): says so, offers the nearest sheet by name, and links the index.
+ */
+export function missingSheetPage(folderName: string, asked: string, entries: IndexEntry[]): string {
+  const near = nearestWord(asked, entries.map((e) => e.path));
+  const hint = near ? `<p>Did you mean <a href="${escapeHtml(entries.find((e) => e.path === near)!.url)}">${escapeHtml(near)}</a>?</p>` : '';
+  return `${head(`No such sheet · Wakesheet`)}
+<body class="live-index-page">
+${bar(`<span class="live-crumb">${escapeHtml(folderName)}</span>`)}
+<main class="live-index">
+<h1>No such sheet</h1>
+<p>There is no sheet <code>${escapeHtml(asked)}</code> in the folder <code>${escapeHtml(folderName)}</code>.</p>
+${hint}<p><a href="/">All ${escapeHtml(countText(entries.length, 'sheet'))} of this folder</a></p>
 </main>
 </body>
 </html>

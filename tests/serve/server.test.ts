@@ -96,6 +96,17 @@ describe('HTTP', () => {
     for (const method of ['POST', 'PUT', 'DELETE', 'PATCH']) expect((await get(server.port, '/sheet/wing.md', {}, method)).status).toBe(405);
   });
 
+  it('answers a mistyped sheet address with a page that offers the nearest sheet and the index', async () => {
+    const server = await serve({ 'wing.md': 'w', 'hull.md': 'h' });
+    const reply = await get(server.port, '/sheet/wnig.md');
+    expect(reply.status).toBe(404);
+    expect(reply.body).toContain('There is no sheet <code>wnig.md</code> in the folder');
+    expect(reply.body).toContain('Did you mean <a href="/sheet/wing.md">wing.md</a>?');
+    expect(reply.body).toContain('<a href="/">All 2 sheets of this folder</a>');
+    // What was asked is shown as text, never as markup.
+    expect((await get(server.port, '/sheet/%3Cb%3Ex.md')).body).toContain('<code>&lt;b&gt;x.md</code>');
+  });
+
   it('serves no file from outside the folder', async () => {
     const outside = await makeFolder({ 'secret.md': 'top secret' });
     cleanup.push(outside.remove);
