@@ -122,7 +122,7 @@ ${bar(`<span class="live-crumb">${escapeHtml(folderName)}</span>`)}
 <main class="live-index">
 <h1>No such sheet</h1>
 <p>There is no sheet <code>${escapeHtml(asked)}</code> in the folder <code>${escapeHtml(folderName)}</code>.</p>
-${hint}<p><a href="/">All ${escapeHtml(countText(entries.length, 'sheet'))} of this folder</a></p>
+${hint}<p><a href="/">The sheets of this folder</a> (${escapeHtml(countText(entries.length, 'sheet'))})</p>
 </main>
 </body>
 </html>

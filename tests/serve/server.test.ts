@@ -102,7 +102,7 @@ describe('HTTP', () => {
     expect(reply.status).toBe(404);
     expect(reply.body).toContain('There is no sheet <code>wnig.md</code> in the folder');
     expect(reply.body).toContain('Did you mean <a href="/sheet/wing.md">wing.md</a>?');
-    expect(reply.body).toContain('<a href="/">All 2 sheets of this folder</a>');
+    expect(reply.body).toContain('<a href="/">The sheets of this folder</a> (2 sheets)');
     // What was asked is shown as text, never as markup.
     expect((await get(server.port, '/sheet/%3Cb%3Ex.md')).body).toContain('<code>&lt;b&gt;x.md</code>');
   });
