@@ -4,7 +4,8 @@
 //
 //   node --import tsx scripts/screenshot.ts [SHEET] [-o OUT] [--dir DIR] [--width N] [--height N] [--full] [--at TEXT] [--print]
 //
-// --at scrolls the first element that shows TEXT to the top of the window.
+// --at scrolls the first element of the sheet itself that shows TEXT to the top of the
+// window (the summary above the sheet repeats failing checks' labels: it is passed over).
 //
 // The default is the README's picture: the near-wall plan at 1280 px, written
 // to docs/live-page.png.
@@ -46,7 +47,7 @@ try {
   await page.goto(new URL('sheet/' + sheet.split(path.sep).map(encodeURIComponent).join('/'), server.url).href, { waitUntil: 'networkidle' });
   await page.evaluate(() => document.fonts.ready);
   const at = option('--at', '');
-  if (at) await page.getByText(at).first().evaluate((el) => el.scrollIntoView({ block: 'start' }));
+  if (at) await page.locator('main').getByText(at).first().evaluate((el) => el.scrollIntoView({ block: 'start' }));
   await mkdir(path.dirname(out), { recursive: true });
   if (print) await page.pdf({ path: out, format: 'A4', printBackground: true });
   else await page.screenshot({ path: out, fullPage: flag('--full') });
