@@ -26,6 +26,8 @@ const FUNCS = new Map<string, (args: string[]) => string>(Object.entries({
 } satisfies Record<string, (args: string[]) => string>));
 
 const REL: Record<string, string> = { '<': '<', '<=': '\\le', '>': '>', '>=': '\\ge', '==': '=', '!=': '\\ne' };
+// The relation that does hold when a comparison fails: "1.8 ≯ 2", never a false "1.8 > 2".
+const NOT_REL: Record<string, string> = { '<': '\\nless', '<=': '\\nleq', '>': '\\ngtr', '>=': '\\ngeq', '==': '\\ne', '!=': '=' };
 
 /** A field path as a name: air.nu → ["air", "nu"]. */
 function pathOf(e: Expr): string[] | null {
@@ -85,6 +87,16 @@ function compound(e: Expr, ctx: LatexContext): boolean {
 
 function bracket(s: string): string {
   return `\\left(${s}\\right)`;
+}
+
+/**
+ * A single comparison that came out false, written with the negated relation
+ * so that the line states what is true (`1.8 × 10⁵ ≯ 2 × 10⁵`); anything
+ * else (a chain, a compound condition) is null and keeps its own form.
+ */
+export function failedComparisonLatex(e: Expr, ctx: LatexContext): string | null {
+  if (e.type !== 'compare' || e.ops.length !== 1) return null;
+  return `${exprLatex(e.operands[0]!, ctx)} ${NOT_REL[e.ops[0]!]} ${exprLatex(e.operands[1]!, ctx)}`;
 }
 
 export function exprLatex(e: Expr, ctx: LatexContext): string {

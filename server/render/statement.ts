@@ -7,7 +7,7 @@ import type { Value } from '../core/index.js';
 import type { StatementResult } from '../evaluate/sheet-eval.js';
 import { attrs, escapeHtml, noteList } from './html.js';
 import { chainHtml, mathHtml } from './katex.js';
-import { exprLatex, valueLatex, type LatexContext } from './latex.js';
+import { exprLatex, failedComparisonLatex, valueLatex, type LatexContext } from './latex.js';
 import { symbolLatex } from './symbols.js';
 import { allItemsHtml, dataAttrs, displayText, FOLD_AFTER, valueHtml } from './values.js';
 import { uncertaintyHtml } from './uncertainty.js';
@@ -76,7 +76,12 @@ function substituted(e: Expr, view: StatementView): string | null {
   // A sweep names the input it varies: its value in place of its name would say the opposite.
   if (isSweep(e)) return null;
   if (e.type === 'call' && e.args.some((a) => a.value.type === 'name' && view.values.get(a.value.name)?.kind === 'record')) return null;
-  return exprLatex(e, { ...symbolicContext(view), valueFor: valueOfFactory(view) });
+  return exprLatex(e, substitutedContext(view));
+}
+
+/** The LaTeX context of a statement's substituted form: names replaced by their values. */
+function substitutedContext(view: StatementView): LatexContext {
+  return { ...symbolicContext(view), valueFor: valueOfFactory(view) };
 }
 
 function warningsHtml(r: StatementResult): string {
@@ -168,11 +173,24 @@ function uncertaintyOf(r: StatementResult, v: Value, view: StatementView): strin
   return ` ${uncertaintyHtml(v, { u: p.u, ...(distribution ? { distribution } : {}), ...(p.problem ? { problem: p.problem } : {}) }, view.sig)}`;
 }
 
+/**
+ * A check's values after its formula. A failed single comparison is joined by
+ * "but" and written with the relation that holds (`Re > 2×10⁵ but 1.8×10⁵ ≯ 2×10⁵`),
+ * so the line never states a falsehood; otherwise "⟹" and the values as written.
+ */
+function checkValues(r: StatementResult & { stmt: Extract<Statement, { type: 'check' }> }, view: StatementView): { latex: string; joint: string } | null {
+  const subst = substituted(r.stmt.expr, view);
+  if (subst === null) return null;
+  const failed = r.passed === false && !r.error && !r.blockedBy && !r.skipped;
+  const refuted = failed ? failedComparisonLatex(r.stmt.expr, substitutedContext(view)) : null;
+  return refuted ? { latex: refuted, joint: '\\quad\\text{but}\\quad' } : { latex: subst, joint: '\\quad\\Longrightarrow\\quad' };
+}
+
 function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'check' }> }, view: StatementView): string {
   const s = r.stmt;
   const symbolic = exprLatex(s.expr, symbolicContext(view));
-  const subst = substituted(s.expr, view);
-  const formula = chainHtml(symbolic, subst && subst !== symbolic ? [subst] : [], '\\quad\\Longrightarrow\\quad');
+  const values = checkValues(r, view);
+  const formula = chainHtml(symbolic, values && values.latex !== symbolic ? [values.latex] : [], values?.joint);
   const label = s.label ? `<span class="ws-label">${escapeHtml(s.label)}</span>` : '';
   if (r.error) return `<div class="ws-stmt ws-check ws-check-error"${attrs({ 'data-line': s.line })}>${formula}${label}${errorHtml(r.error.message, r.error.line, r.error.column, s.source)}</div>`;
   if (r.blockedBy || r.skipped) return `<div class="ws-stmt ws-check ws-check-blocked"${attrs({ 'data-line': s.line })}>${formula}${label}${blockedHtml(r)}</div>`;

@@ -86,3 +86,19 @@ describe('sanitising', () => {
     expect(r.html.match(/<main/g)).toHaveLength(1);
   });
 });
+
+describe('checks', () => {
+  // A failed comparison shows the relation that holds, so the substituted line is never a false statement.
+  it('write a failed comparison with the negated relation, and a passed one as written', async () => {
+    const r = await sheet(['Re = 1.8e5', 'check Re > 2e5', 'check Re <= 1e5', 'check Re >= 1e5', 'check 1e5 < Re < 1.5e5']);
+    const checks = r.parts.filter((p) => p.html.includes('ws-check')).map((p) => p.html);
+    const html = checks.join('');
+    const tex = annotations(html).map((t) => t.replace(/&lt;/g, '<').replace(/&gt;/g, '>'));
+    expect(tex).toContain('{} \\quad\\text{but}\\quad 1.8\\times 10^{5} \\ngtr 2\\times 10^{5}');
+    expect(tex).toContain('{} \\quad\\text{but}\\quad 1.8\\times 10^{5} \\nleq 1\\times 10^{5}');
+    expect(tex).toContain('{} \\quad\\Longrightarrow\\quad 1.8\\times 10^{5} \\ge 1\\times 10^{5}');
+    // A chain keeps its own form: which link failed is not singled out.
+    expect(tex).toContain('{} \\quad\\Longrightarrow\\quad 1\\times 10^{5} < 1.8\\times 10^{5} < 1.5\\times 10^{5}');
+    expect(html.match(/data-passed="false"/g)).toHaveLength(3);
+  });
+});
