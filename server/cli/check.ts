@@ -11,7 +11,8 @@ Evaluates every sheet under DIR (default: the current folder), or one sheet.
 Prints one line per failed check or error as file:line: message, and exits 1
 if there is any. A check that holds at nominal but not over the ±2u range of
 the uncertain inputs it depends on is listed too, as a note: it does not
-change the exit code. --set U_inf=20m/s (repeatable) replaces an input for this run
+change the exit code, nor does a sheet with no \`basis\` block (noted: nothing
+on it was evaluated). --set U_inf=20m/s (repeatable) replaces an input for this run
 in every sheet that defines it; a name no sheet defines is an error.`;
 
 export async function checkCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
@@ -28,6 +29,7 @@ export async function checkCommand(argv: string[], sandbox = new Sandbox()): Pro
   let bad = 0;
   let sheets = 0;
   let overRange = 0;
+  let checks = 0;
   const taken = new Set<string>();
   try {
     for (const file of files) {
@@ -36,6 +38,11 @@ export async function checkCommand(argv: string[], sandbox = new Sandbox()): Pro
       const { result: r } = await runOne(sandbox, file, dir, undefined, extra);
       for (const name of r.overridesMatched) taken.add(name);
       const rel = relative(process.cwd(), file) || file;
+      checks += r.checks.length;
+      // A mistyped fence ("```ws") leaves a sheet with nothing to evaluate: "all checks pass" alone would hide it.
+      if (r.summary.inputs + r.summary.results + r.checks.length === 0 && r.errors.length === 0) {
+        process.stdout.write(`${rel}: ${colour(36, 'note')} no \`basis\` block, nothing evaluated\n`);
+      }
       for (const e of r.errors) {
         bad++;
         process.stdout.write(`${rel}:${e.line}:${e.column}: ${colour(31, 'error')} ${e.message}\n`);
@@ -60,6 +67,8 @@ export async function checkCommand(argv: string[], sandbox = new Sandbox()): Pro
   }
   if (overrides) process.stdout.write(`with ${Object.entries(overrides).map(([k, v]) => `${k} = ${v}`).join(', ')} set for this run\n`);
   const range = overRange ? `; ${countText(overRange, 'check')} ${overRange === 1 ? 'holds' : 'hold'} at nominal only, not over the inputs' ±2u range` : '';
-  process.stdout.write(`${countText(sheets, 'sheet')}, ${bad === 0 ? colour(32, 'all checks pass') : colour(31, countText(bad, 'problem'))}${range}\n`);
+  const counted = checks ? countText(checks, 'check') : 'no checks';
+  const verdict = bad ? `, ${colour(31, countText(bad, 'problem'))}` : checks ? `, ${colour(32, checks === 1 ? 'it passes' : 'all pass')}` : '';
+  process.stdout.write(`${countText(sheets, 'sheet')}, ${counted}${verdict}${range}\n`);
   return bad ? 1 : 0;
 }

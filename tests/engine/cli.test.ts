@@ -38,6 +38,16 @@ describe('wakesheet CLI', () => {
     expect(r.stdout).toContain('sub/bad.md:3:5: error cannot add m/s to Pa');
     expect(r.stdout).toContain('sub/bad.md:4: check failed fast');
     expect(r.stdout).not.toContain('good.md');
+    expect(r.stdout).toContain('2 sheets, 2 checks, 2 problems');
+  });
+
+  it('check counts the checks and notes a sheet with nothing to evaluate', async () => {
+    const other = mkdtempSync(join(tmpdir(), 'ws-cli-fence-'));
+    // A mistyped fence: the block is shown as code, and nothing on the sheet is evaluated.
+    writeFileSync(join(other, 'typo.md'), '# Typo\n\n```bsis\nU = 12 m/s\n```\n');
+    const r = await run(['check', '.'], other);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toBe('typo.md: note no `basis` block, nothing evaluated\n1 sheet, no checks\n');
   });
 
   it('render -o writes one self-contained HTML file', async () => {
@@ -134,7 +144,7 @@ describe('wakesheet CLI', () => {
     const none = await run(['check', '.', '--set', 'Q=1'], dir);
     expect([none.code, none.stdout]).toEqual([1, expect.stringContaining('--set Q: no sheet under . has an input `Q`')]);
     const one = await run(['check', join(dir, 'good.md'), '--set', 'U=25 m/s']);
-    expect([one.code, one.stdout]).toEqual([0, expect.stringContaining('1 sheet, all checks pass')]);
+    expect([one.code, one.stdout]).toEqual([0, expect.stringContaining('1 sheet, 1 check, it passes')]);
   });
 
   it('check notes a check that holds at nominal but not over the ±2u range, without failing', async () => {
@@ -143,7 +153,7 @@ describe('wakesheet CLI', () => {
     // 30 + 2 × 1.5 = 33 m/s at the upper end of the range, past 32 m/s.
     expect(r.code).toBe(0);
     expect(r.stdout).toContain('spread.md:3: note below the tunnel limit: holds at nominal, fails at U = 33 m/s (1 of the 2 ends of the ±2u range)');
-    expect(r.stdout).toContain("1 sheet, all checks pass; 1 check holds at nominal only, not over the inputs' ±2u range");
+    expect(r.stdout).toContain("1 sheet, 1 check, it passes; 1 check holds at nominal only, not over the inputs' ±2u range");
     // eval prints a value's standard uncertainty beside it, as the page does.
     const e = await run(['eval', join(dir, 'spread.md')]);
     expect(e.stdout).toMatch(/^U = 30 m\/s ± 1\.5 m\/s\n/);
