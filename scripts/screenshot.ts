@@ -10,6 +10,7 @@
 // The default is the README's picture: the near-wall plan at 1280 px, written
 // to docs/live-page.png.
 import path from 'node:path';
+import { existsSync } from 'node:fs';
 import { mkdir } from 'node:fs/promises';
 import { openChromium } from './chromium.js';
 import { startServer } from '../server/serve/index.js';
@@ -32,8 +33,16 @@ if (unknown.length) {
   process.stderr.write(`unknown option ${unknown.join(', ')}\n${USAGE}\n`);
   process.exit(2);
 }
-const sheet = args.find((a, i) => !a.startsWith('-') && !valued.has(args[i - 1] ?? '')) ?? 'van-near-wall.md';
-const dir = option('--dir', 'worksheets');
+const given = args.find((a, i) => !a.startsWith('-') && !valued.has(args[i - 1] ?? '')) ?? 'van-near-wall.md';
+// SHEET is read inside DIR; without --dir, a path to a sheet elsewhere serves that sheet's folder.
+const ownFile = !args.includes('--dir') && !existsSync(path.join('worksheets', given)) && existsSync(given);
+const dir = ownFile ? path.dirname(path.resolve(given)) : option('--dir', 'worksheets');
+const sheet = ownFile ? path.basename(given) : given;
+// A picture of the "no such sheet" page is never what was asked for.
+if (!existsSync(path.join(dir, sheet))) {
+  process.stderr.write(`no sheet ${sheet} in ${dir}\n${USAGE}\n`);
+  process.exit(2);
+}
 const print = flag('--print');
 const out = path.resolve(option('-o', print ? 'docs/live-page.pdf' : 'docs/live-page.png'));
 const width = Number(option('--width', '1280'));

@@ -9,7 +9,7 @@ import { asSheetError, isStatement, isUse, parseExpression, parseLine, type Brok
 import { dataReader, projectPath } from '../read/data-files.js';
 import { loadImages, type ImageCache } from '../read/images.js';
 import { splitFrontMatter } from '../read/front-matter.js';
-import { normaliseNewlines, resplitParts, splitParts, type SourcePart, type SplitSheet } from '../read/parts.js';
+import { normaliseNewlines, resplitParts, splitParts, type FenceSlip, type SourcePart, type SplitSheet } from '../read/parts.js';
 import { readDisplayUnits } from '../render/display-units.js';
 import { setPreferredUnits } from '../render/numbers.js';
 import { inlineKey, PartRenderer } from '../render/parts.js';
@@ -132,7 +132,7 @@ export class SheetPipeline {
       frontMatterProblems,
       imageProblems,
       broken,
-      lineErrors: [...uses.errors, ...overrideErrors],
+      lineErrors: [...uses.errors, ...overrideErrors, ...sheet.fenceSlips.map(fenceSlipError)],
       evaluation,
       inline,
       parts,
@@ -264,4 +264,14 @@ let registry: Registry | undefined;
 function sharedRegistry(): Registry {
   registry ??= createRegistry();
   return registry;
+}
+
+/** A code block meant as a basis block: an error, since nothing in it is evaluated. */
+function fenceSlipError(slip: FenceSlip): Diagnostic {
+  return {
+    code: 'syntax',
+    line: slip.line,
+    column: slip.column,
+    message: `this block's fence says \`${slip.word}\`, so it is shown as code and nothing in it is evaluated: write \`basis\` to evaluate it, or another word (such as \`text\`) to keep it as code`,
+  };
 }

@@ -3,6 +3,7 @@
 // top-level tokens tile the (LF-normalised) text exactly, so summing their
 // raw lengths gives every block's offset.
 import { Lexer, type Token, type Tokens, type TokensList } from 'marked';
+import { nearestWord } from '../core/shared/words.js';
 
 export interface BlockLine {
   /** 1-based line in the file. */
@@ -39,18 +40,41 @@ export type ProsePart = {
 export type BlockPart = { kind: 'block'; fenceLine: number; lines: BlockLine[] };
 export type SourcePart = ProsePart | BlockPart;
 
+/** A fence whose word is one slip from `basis` ("Basis", "bsis"): shown as code, so nothing in it would run unsaid. */
+export interface FenceSlip {
+  line: number;
+  column: number;
+  word: string;
+}
+
 export interface SplitSheet {
   parts: SourcePart[];
   /** Link definitions, needed when prose is rendered piece by piece. */
   links: TokensList['links'];
+  fenceSlips: FenceSlip[];
 }
 
 export function normaliseNewlines(text: string): string {
   return text.replace(/\r\n?/g, '\n');
 }
 
+function fenceWord(t: Token): string | undefined {
+  return t.type === 'code' && typeof (t as { lang?: string }).lang === 'string' ? (t as { lang: string }).lang.trim().split(/\s+/)[0] : undefined;
+}
+
 function isBasisFence(t: Token): t is Token & { type: 'code'; lang: string; raw: string } {
-  return t.type === 'code' && typeof (t as { lang?: string }).lang === 'string' && (t as { lang: string }).lang.trim().split(/\s+/)[0] === 'basis';
+  return fenceWord(t) === 'basis';
+}
+
+// Code-block words one edit from "basis" that name something else.
+const NOT_SLIPS = new Set(['basic']);
+
+/** The fence of a code block that was surely meant as a basis block: its line and word, or undefined. */
+function fenceSlip(t: Token, line: number): FenceSlip | undefined {
+  const word = fenceWord(t);
+  if (!word || word === 'basis' || NOT_SLIPS.has(word.toLowerCase()) || nearestWord(word, ['basis'], 1) === undefined) return undefined;
+  const fenceLine = t.raw.replace(/^\n+/, '').split('\n', 1)[0]!;
+  return { line: line + leadingNewlines(t.raw), column: fenceLine.indexOf(word) + 1, word };
 }
 
 export function splitParts(text: string): SplitSheet {
@@ -66,6 +90,7 @@ export function splitParts(text: string): SplitSheet {
   let prose: Token[] = [];
   let proseLine = 1;
   let proseRaw = '';
+  const fenceSlips: FenceSlip[] = [];
   const flush = () => {
     if (prose.length) parts.push({ kind: 'prose', tokens: prose, firstLine: proseLine, raw: proseRaw, ...proseSources(prose, proseRaw, proseLine) });
     prose = [];
@@ -77,6 +102,8 @@ export function splitParts(text: string): SplitSheet {
       flush();
       parts.push({ kind: 'block', fenceLine: line + leadingNewlines(raw), lines: blockLines(raw, line) });
     } else {
+      const slip = fenceSlip(t, line);
+      if (slip) fenceSlips.push(slip);
       if (prose.length === 0) proseLine = line;
       prose.push(t);
       proseRaw += raw;
@@ -84,7 +111,7 @@ export function splitParts(text: string): SplitSheet {
     line += countNewlines(raw);
   }
   flush();
-  return { parts, links: tokens.links };
+  return { parts, links: tokens.links, fenceSlips };
 }
 
 /** Why prose is shown as plain text when marked cannot follow it. */
@@ -122,7 +149,7 @@ function splitPlain(text: string): SplitSheet {
     proseStart = j + 1;
   }
   prose(lines.length);
-  return { parts, links: Object.create(null) as TokensList['links'] };
+  return { parts, links: Object.create(null) as TokensList['links'], fenceSlips: [] };
 }
 
 /** The `=expr` code spans and the images of a prose part, in document order, with their file lines. */
@@ -228,5 +255,5 @@ export function resplitParts(prevText: string, prev: SplitSheet, next: string): 
   const lines = block.lines.map((l) => (l.line >= lineFirst && l.line <= lineLast ? { ...l, text: b[l.line - 1]! } : l));
   const parts = prev.parts.slice();
   parts[index] = { ...block, lines };
-  return { parts, links: prev.links };
+  return { parts, links: prev.links, fenceSlips: prev.fenceSlips };
 }

@@ -43,11 +43,14 @@ describe('wakesheet CLI', () => {
 
   it('check counts the checks and notes a sheet with nothing to evaluate', async () => {
     const other = mkdtempSync(join(tmpdir(), 'ws-cli-fence-'));
-    // A mistyped fence: the block is shown as code, and nothing on the sheet is evaluated.
-    writeFileSync(join(other, 'typo.md'), '# Typo\n\n```bsis\nU = 12 m/s\n```\n');
+    // A fence word far from `basis` (a slip of one letter is an error of its own): nothing on the sheet is evaluated.
+    writeFileSync(join(other, 'notes.md'), '# Notes\n\n```calc\nU = 12 m/s\n```\n');
     const r = await run(['check', '.'], other);
     expect(r.code).toBe(0);
-    expect(r.stdout).toBe('typo.md: note no `basis` block, nothing evaluated\n1 sheet, no checks\n');
+    expect(r.stdout).toBe('notes.md: note no `basis` block, nothing evaluated\n1 sheet, no checks\n');
+    writeFileSync(join(other, 'notes.md'), '# Notes\n\n```bsis\nU = 12 m/s\n```\n');
+    const slip = await run(['check', '.'], other);
+    expect([slip.code, slip.stdout]).toEqual([1, expect.stringContaining("notes.md:3:4: error this block's fence says `bsis`")]);
   });
 
   it('render -o writes one self-contained HTML file', async () => {

@@ -38,3 +38,18 @@ describe('inline values in prose', () => {
     ]);
   });
 });
+
+describe('a fence one slip from basis', () => {
+  // Without a word, a mistyped fence leaves the block as code and every number in it unevaluated.
+  it('is an error at the fence, not a silent code block; other code blocks stay as they are', async () => {
+    const { renderSheet } = await import('../../server/pipeline/index.js');
+    const text = '# Slips\n\n```Basis\nU = 28 m/s\n```\n\n```bash\nls\n```\n\n```basic\n10 PRINT\n```\n\n  ~~~bsis x\nV = 1\n~~~\n\n```basis\nW = 2 m\n```\n';
+    const r = await renderSheet(text);
+    expect(r.errors.map((e) => [e.line, e.column, e.code])).toEqual([[3, 4, 'syntax'], [15, 6, 'syntax']]);
+    expect(r.errors[0]!.message).toBe("this block's fence says `Basis`, so it is shown as code and nothing in it is evaluated: write `basis` to evaluate it, or another word (such as `text`) to keep it as code");
+    expect(Object.keys(r.values)).toEqual(['W']);
+    // An edit inside a block reuses the split, slips included.
+    const prev = splitParts(text);
+    expect(resplitParts(text, prev, text.replace('W = 2 m', 'W = 3 m')).fenceSlips).toEqual(prev.fenceSlips);
+  });
+});
