@@ -49,7 +49,7 @@ export async function checkCommand(argv: string[], sandbox = new Sandbox()): Pro
       }
       for (const c of r.checks.filter((x) => !x.passed)) {
         bad++;
-        process.stdout.write(`${rel}:${c.line}: ${colour(33, 'check failed')} ${c.text}\n`);
+        process.stdout.write(`${rel}:${c.line}: ${colour(33, 'check failed')} ${c.text}${c.compared ? ` (${c.compared})` : ''}\n`);
       }
       for (const c of r.checks.filter((x) => x.passed && x.range && !x.range.holds)) {
         overRange++;

@@ -30,7 +30,7 @@ export async function evalCommand(argv: string[], sandbox = new Sandbox()): Prom
     } else {
       const lines: string[] = r.overrides.map((o) => `${colour(33, 'set')} ${o.name} = ${o.now} (${o.sheet || file} says ${o.was})`);
       for (const [name, v] of Object.entries(r.values)) valueLines(name, v, '', lines);
-      for (const c of r.checks) lines.push(`${c.passed ? colour(32, 'pass') : colour(31, 'FAIL')} line ${c.line}: ${c.text}${c.range ? ` (over the inputs' range: ${c.range.text})` : ''}`);
+      for (const c of r.checks) lines.push(`${c.passed ? colour(32, 'pass') : colour(31, 'FAIL')} line ${c.line}: ${c.text}${c.compared ? ` (${c.compared})` : ''}${c.range ? ` (over the inputs' range: ${c.range.text})` : ''}`);
       for (const e of r.errors) lines.push(`${colour(31, 'error')} ${file}:${e.line}:${e.column}: ${e.message}`);
       process.stdout.write(lines.map((l) => l + '\n').join(''));
     }

@@ -5,6 +5,7 @@ import type { InlineExpr, SheetEvaluation } from '../evaluate/index.js';
 import { isLiteral, literalArguments, literalText, type BrokenLine } from '../parse/index.js';
 import { sheetHeaderHtml, summaryHtml, type SummaryItem } from '../render/page.js';
 import type { SheetPart } from '../render/parts.js';
+import { comparedValuesText } from '../render/compared-values.js';
 import { valueJson, withUncertainty, type ValueJson } from '../render/value-json.js';
 import type { ArgumentJson, CheckJson, ErrorJson, InputJson, Override, SheetReport } from './types.js';
 import type { Diagnostic } from '../diagnostics.js';
@@ -55,7 +56,8 @@ export function buildReport(input: ReportInput): SheetReport {
     if (r.error) error(r.error.line, r.error.column, r.error.message, r.error.code, r.stmt.line);
     if (r.stmt.type === 'check' && r.passed === undefined) checksNotRun++;
     if (r.stmt.type === 'check' && r.passed !== undefined) {
-      const check: CheckJson = { line: r.stmt.line, passed: r.passed, text: r.stmt.label ?? r.stmt.source.replace(/^check\s+/, '') };
+      const compared = r.passed ? undefined : comparedValuesText(r.stmt.expr, evaluation.values, input.sig);
+      const check: CheckJson = { line: r.stmt.line, passed: r.passed, text: r.stmt.label ?? r.stmt.source.replace(/^check\s+/, ''), ...(compared ? { compared } : {}) };
       checks.push(r.range ? { ...check, range: { holds: r.range.holds, text: r.range.text } } : check);
       if (!r.passed) problems.push({ line: r.stmt.line, text: `check failed: ${r.stmt.label ?? r.stmt.source}`, kind: 'fail' });
       else if (r.range && !r.range.holds) problems.push({ line: r.stmt.line, text: `${r.stmt.label ?? r.stmt.source}: ${r.range.text}`, kind: 'range' });

@@ -10,6 +10,8 @@ export interface CheckJson {
   line: number;
   passed: boolean;
   text: string;
+  /** On a failed check: the values it compared, as text ("U_wind = 28 m/s"). */
+  compared?: string;
   /** For a check that depends on inputs with an uncertainty: whether it holds over their ±2u range too. */
   range?: { holds: boolean; text: string };
 }

@@ -7,6 +7,7 @@ import type { Value } from '../core/index.js';
 import type { StatementResult } from '../evaluate/sheet-eval.js';
 import { attrs, escapeHtml, noteList } from './html.js';
 import { chainHtml, mathHtml } from './katex.js';
+import { valueAt } from './compared-values.js';
 import { exprLatex, failedComparisonLatex, valueLatex, type LatexContext } from './latex.js';
 import { symbolLatex } from './symbols.js';
 import { allItemsHtml, dataAttrs, displayText, FOLD_AFTER, valueHtml } from './values.js';
@@ -45,14 +46,7 @@ function hasNames(e: Expr): boolean {
 }
 
 function valueOfFactory(view: StatementView) {
-  return (e: Expr): Value | undefined => {
-    if (e.type === 'name') return view.values.get(e.name);
-    if (e.type === 'field') {
-      const owner = valueOfFactory(view)(e.object);
-      return owner?.kind === 'record' ? owner.fields.get(e.field)?.value : undefined;
-    }
-    return undefined;
-  };
+  return (e: Expr): Value | undefined => valueAt(e, view.values);
 }
 
 /** The declared symbol of a field, read from the record (or the first record of a sweep) it belongs to. */

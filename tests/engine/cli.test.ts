@@ -36,7 +36,8 @@ describe('wakesheet CLI', () => {
     const r = await run(['check', '.'], dir);
     expect(r.code).toBe(1);
     expect(r.stdout).toContain('sub/bad.md:3:5: error cannot add m/s to Pa');
-    expect(r.stdout).toContain('sub/bad.md:4: check failed fast');
+    // A failed check says what it compared, so a reader at the terminal sees by how much.
+    expect(r.stdout).toContain('sub/bad.md:4: check failed fast (U = 12 m/s)\n');
     expect(r.stdout).not.toContain('good.md');
     expect(r.stdout).toContain('2 sheets, 2 checks, 2 problems');
   });
