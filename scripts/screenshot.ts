@@ -56,11 +56,19 @@ try {
   await page.goto(new URL('sheet/' + sheet.split(path.sep).map(encodeURIComponent).join('/'), server.url).href, { waitUntil: 'networkidle' });
   await page.evaluate(() => document.fonts.ready);
   const at = option('--at', '');
-  if (at) await page.locator('main').getByText(at).first().evaluate((el) => el.scrollIntoView({ block: 'start' }));
+  if (at) {
+    const found = page.locator('main').getByText(at).first();
+    // Text typeset as mathematics (a name such as Re_mast) is not page text: say so rather than time out.
+    if ((await found.count()) === 0) throw new Error(`no text "${at}" on the sheet (--at looks for words on the page, such as a label or a description, not a name typeset as mathematics)`);
+    await found.evaluate((el) => el.scrollIntoView({ block: 'start' }));
+  }
   await mkdir(path.dirname(out), { recursive: true });
   if (print) await page.pdf({ path: out, format: 'A4', printBackground: true });
   else await page.screenshot({ path: out, fullPage: flag('--full') });
   console.log(`wrote ${path.relative(process.cwd(), out)}`);
+} catch (e) {
+  process.stderr.write(`${(e as Error).message}\n`);
+  process.exitCode = 2;
 } finally {
   await browser.close();
   await server.close();

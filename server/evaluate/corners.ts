@@ -58,6 +58,11 @@ export function checkOverRange(line: number, nominal: boolean, inputs: readonly 
   const at = nominal ? 'holds at nominal' : 'fails at nominal';
   if (failures === 0) return { holds: true, text: `${at}${nominal ? ' and' : ', holds'} at ${all}` };
   const label = (m: Map<string, Value>) => [...m].map(([n, v]) => `${n} = ${valueWords(v)}`).join(', ');
+  // Failing everywhere it was tried: one phrase, and for one input its two ends.
+  if (failures === tried.length && !cannot) {
+    const ends = tried.length === 2 && corners ? ` (${tried.map((p) => label(p.changes)).join(' and ')})` : '';
+    return { holds: false, text: `${nominal ? 'holds at nominal, fails' : 'fails at nominal and'} at ${all}${ends}` };
+  }
   if (!failedAt) return { holds: false, text: `${at}, cannot run at one point (line ${cannot!.line}: ${cannot!.message}) (${some})` };
   // Failing at nominal and at a point: say so once, and name a point where it holds,
   // which tells the reader which way the inputs must move.

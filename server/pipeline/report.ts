@@ -9,6 +9,7 @@ import { comparedValuesText } from '../render/compared-values.js';
 import { valueJson, withUncertainty, type ValueJson } from '../render/value-json.js';
 import type { ArgumentJson, CheckJson, ErrorJson, InputJson, Override, SheetReport } from './types.js';
 import type { Diagnostic } from '../diagnostics.js';
+import { dimsEqual, type Dims } from '../units/dims.js';
 
 export interface ReportInput {
   title: string;
@@ -98,7 +99,7 @@ export function buildReport(input: ReportInput): SheetReport {
   };
   // A bare expression's result counts as much as a named one: `abl(...)` alone on a line still gives wind loads.
   const shown = [...evaluation.values.values(), ...evaluation.results.flatMap((r) => (r.value ? [r.value] : []))];
-  const caution = shown.some(needsCaution) || input.meta.caution === 'true';
+  const caution = shown.some(needsCaution) || evaluation.results.some(computesLoad) || input.meta.caution === 'true';
   return {
     title: input.title,
     meta: input.meta,
@@ -136,4 +137,23 @@ function needsCaution(v: Value): boolean {
   if (v.kind === 'record') return v.tag === 'caution' || [...v.fields.values()].some((f) => needsCaution(f.value));
   if (v.kind === 'list') return v.items.some(needsCaution);
   return false;
+}
+
+// Force, pressure or stress, force per length, moment: what a load is measured in.
+const LOAD_DIMS: readonly Dims[] = [
+  [1, 1, -2, 0, 0, 0, 0],
+  [1, -1, -2, 0, 0, 0, 0],
+  [1, 0, -2, 0, 0, 0, 0],
+  [1, 2, -2, 0, 0, 0, 0],
+];
+
+/**
+ * A result the sheet computes in the units of a load (`q = dynamic_pressure(U, a)`,
+ * `F = q * A`) calls for the planning caution as a tagged record does. Inputs typed
+ * as numbers (an ambient pressure) and fields inside records (a fluid's p) do not.
+ */
+function computesLoad(r: SheetEvaluation['results'][number]): boolean {
+  if (!r.value || (r.stmt.type === 'define' && isLiteral(r.stmt.expr)) || r.stmt.type === 'check') return false;
+  const items = r.value.kind === 'list' ? r.value.items : [r.value];
+  return items.some((v) => v.kind === 'quantity' && LOAD_DIMS.some((d) => dimsEqual(d, v.dims)));
 }

@@ -168,16 +168,18 @@ function uncertaintyOf(r: StatementResult, v: Value, view: StatementView): strin
 }
 
 /**
- * A check's values after its formula. A failed single comparison is joined by
- * "but" and written with the relation that holds (`Re > 2×10⁵ but 1.8×10⁵ ≯ 2×10⁵`),
- * so the line never states a falsehood; otherwise "⟹" and the values as written.
+ * A check's values after its formula. A failed check is joined by "but" and
+ * says what does hold: a single comparison with the negated relation
+ * (`Re > 2×10⁵ but 1.8×10⁵ ≯ 2×10⁵`), a chain or a compound condition as
+ * "not (…)", in plain brackets so a long one can wrap on a phone. A check over a list keeps "⟹" and its values (some items may hold).
  */
 function checkValues(r: StatementResult & { stmt: Extract<Statement, { type: 'check' }> }, view: StatementView): { latex: string; joint: string } | null {
   const subst = substituted(r.stmt.expr, view);
   if (subst === null) return null;
-  const failed = r.passed === false && !r.error && !r.blockedBy && !r.skipped;
-  const refuted = failed ? failedComparisonLatex(r.stmt.expr, substitutedContext(view)) : null;
-  return refuted ? { latex: refuted, joint: '\\quad\\text{but}\\quad' } : { latex: subst, joint: '\\quad\\Longrightarrow\\quad' };
+  const implies = { latex: subst, joint: '\\quad\\Longrightarrow\\quad' };
+  if (r.passed !== false || r.error || r.blockedBy || r.skipped || r.value?.kind !== 'bool') return implies;
+  const refuted = failedComparisonLatex(r.stmt.expr, substitutedContext(view)) ?? `\\text{not}\\ (${subst})`;
+  return { latex: refuted, joint: '\\quad\\text{but}\\quad' };
 }
 
 function checkHtml(r: StatementResult & { stmt: Extract<Statement, { type: 'check' }> }, view: StatementView): string {

@@ -97,8 +97,15 @@ describe('checks', () => {
     expect(tex).toContain('{} \\quad\\text{but}\\quad 1.8\\times 10^{5} \\ngtr 2\\times 10^{5}');
     expect(tex).toContain('{} \\quad\\text{but}\\quad 1.8\\times 10^{5} \\nleq 1\\times 10^{5}');
     expect(tex).toContain('{} \\quad\\Longrightarrow\\quad 1.8\\times 10^{5} \\ge 1\\times 10^{5}');
-    // A chain keeps its own form: which link failed is not singled out.
-    expect(tex).toContain('{} \\quad\\Longrightarrow\\quad 1\\times 10^{5} < 1.8\\times 10^{5} < 1.5\\times 10^{5}');
+    // A chain is negated as a whole: which link failed is not singled out.
+    expect(tex).toContain('{} \\quad\\text{but}\\quad \\text{not}\\ (1\\times 10^{5} < 1.8\\times 10^{5} < 1.5\\times 10^{5})');
     expect(html.match(/data-passed="false"/g)).toHaveLength(3);
+  });
+
+  it('keep the values of a failed check over a list as written: some items may hold', async () => {
+    const r = await sheet(['L = [1, 4] m', 'check L < 3 m']);
+    const tex = annotations(r.parts.map((p) => p.html).join('')).map((t) => t.replace(/&lt;/g, '<'));
+    expect(tex.some((t) => t.includes('\\nless') || t.includes('\\text{but}'))).toBe(false);
+    expect(tex).toContain('{} \\quad\\Longrightarrow\\quad \\left[1\\,\\mathrm{m},\\ 4\\,\\mathrm{m}\\right] < 3\\,\\mathrm{m}');
   });
 });

@@ -148,6 +148,18 @@ describe('checks over the range', () => {
     expect(r.checks[0]!.passed).toBe(false);
     expect(r.checks[0]!.range).toEqual({ holds: false, text: 'fails at nominal and at a = 4.6 m (1 of the 2 ends of the ±2u range); holds at a = 5.4 m' });
   });
+
+  it('failing at every point tried, says so in one phrase', async () => {
+    // y is 10 m at nominal, 9.6 m and 10.4 m at the ends: none clears 10.5 m.
+    const r = await sheet(['a = 5 m ± 0.2 m', 'y = a + 5 m', 'check y > 10.5 m "long enough"']);
+    expect(r.checks[0]!.range).toEqual({ holds: false, text: 'fails at nominal and at both ends of the ±2u range (a = 4.6 m and a = 5.4 m)' });
+    // Two inputs: 10 m at nominal, 9.2 to 10.8 m over the corners; every corner misses 9 m < y < 9.1 m.
+    const two = await sheet(['a = 5 m ± 0.2 m', 'b = 5 m ± 0.2 m', 'y = a + b', 'check 9 m < y < 9.1 m "in the window"']);
+    expect(two.checks[0]!.range).toEqual({ holds: false, text: 'fails at nominal and at all 4 corners of the ±2u box' });
+    // Holding at nominal but at neither end: 10 m lies in 9.7 m < y < 10.3 m, 9.6 m and 10.4 m do not.
+    const band = await sheet(['a = 5 m ± 0.2 m', 'y = a + 5 m', 'check 9.7 m < y < 10.3 m "in the band"']);
+    expect(band.checks[0]!.range).toEqual({ holds: false, text: 'holds at nominal, fails at both ends of the ±2u range (a = 4.6 m and a = 5.4 m)' });
+  });
 });
 
 describe('the page', () => {
