@@ -26,6 +26,8 @@ export async function checkCommand(argv: string[], sandbox = new Sandbox()): Pro
   if (one) sheetArgument(target, 'check');
   const dir = one ? dirname(target) : target;
   const files = one ? [target] : findSheets(dir);
+  // A folder with no sheet is most often the wrong folder: "0 sheets" with exit 0 would pass it.
+  if (files.length === 0) throw new UsageError(`no sheets (.md files) under ${positional[0] ?? '.'}`);
   let bad = 0;
   let sheets = 0;
   let overRange = 0;

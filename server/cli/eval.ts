@@ -1,6 +1,7 @@
 // `wakesheet eval SHEET.md [--json] [--root DIR]`: values, checks and errors.
 import { dirname, resolve } from 'node:path';
-import type { ValueJson } from '../pipeline/index.js';
+import type { CheckJson, ValueJson } from '../pipeline/index.js';
+import { CAUTION } from '../render/page.js';
 import { colour, failing, overridesOf, parseArgs, runOne, Sandbox, sheetArgument, UsageError, type FlagSpec } from './shared.js';
 
 export const EVAL_HELP = `wakesheet eval SHEET.md [--json] [--root DIR] [--set NAME=VALUE …]
@@ -26,18 +27,26 @@ export async function evalCommand(argv: string[], sandbox = new Sandbox()): Prom
     const { result: r } = await runOne(sandbox, file, root, undefined, { ...(overrides ? { overrides } : {}), render: false });
     if (flags.has('json')) {
       const errors = r.errors.map((e) => ({ line: e.line, column: e.column, message: e.message, code: e.code }));
-      process.stdout.write(JSON.stringify({ values: r.values, checks: r.checks, errors, ...(r.overrides.length ? { overrides: r.overrides } : {}) }, null, 2) + '\n');
+      process.stdout.write(JSON.stringify({ values: r.values, checks: r.checks, errors, ...(r.overrides.length ? { overrides: r.overrides } : {}), ...(r.caution ? { caution: CAUTION } : {}) }, null, 2) + '\n');
     } else {
       const lines: string[] = r.overrides.map((o) => `${colour(33, 'set')} ${o.name} = ${o.now} (${o.sheet || file} says ${o.was})`);
       for (const [name, v] of Object.entries(r.values)) valueLines(name, v, '', lines);
-      for (const c of r.checks) lines.push(`${c.passed ? colour(32, 'pass') : colour(31, 'FAIL')} line ${c.line}: ${c.text}${c.compared ? ` (${c.compared})` : ''}${c.range ? ` (over the inputs' range: ${c.range.text})` : ''}`);
+      for (const c of r.checks) lines.push(`${c.passed ? colour(32, 'pass') : colour(31, 'FAIL')} line ${c.line}: ${c.text}${checkNotes(c)}`);
       for (const e of r.errors) lines.push(`${colour(31, 'error')} ${file}:${e.line}:${e.column}: ${e.message}`);
+      // The page's caution travels with its numbers: a load read off the terminal is still a planning estimate.
+      if (r.caution) lines.push(colour(33, CAUTION));
       process.stdout.write(lines.map((l) => l + '\n').join(''));
     }
     return failing(r) ? 1 : 0;
   } finally {
     await sandbox.close();
   }
+}
+
+/** What a check line adds in brackets: the values a failed check compared, its verdict over the inputs' range. */
+function checkNotes(c: CheckJson): string {
+  const notes = [...(c.compared ? [c.compared] : []), ...(c.range ? [`over the inputs' range: ${c.range.text}`] : [])];
+  return notes.length ? ` (${notes.join('; ')})` : '';
 }
 
 /** A value as text lines: a record's fields indented under its name, a table as rows. */

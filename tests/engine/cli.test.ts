@@ -42,6 +42,22 @@ describe('wakesheet CLI', () => {
     expect(r.stdout).toContain('2 sheets, 2 checks, 2 problems');
   });
 
+  it('check refuses a folder with no sheet: most often the wrong folder', async () => {
+    const empty = mkdtempSync(join(tmpdir(), 'ws-cli-empty-'));
+    const r = await run(['check', empty]);
+    expect([r.code, r.stderr]).toEqual([2, expect.stringContaining(`no sheets (.md files) under ${empty}`)]);
+  });
+
+  it('eval ends with the planning caution when the sheet computes a load, in text and JSON', async () => {
+    writeFileSync(join(dir, 'load.md'), '```basis\nU = 30 m/s\nq = dynamic_pressure(U, air(T: 15 degC))\n```\n');
+    const text = await run(['eval', join(dir, 'load.md')]);
+    expect(text.stdout.trimEnd().split('\n').at(-1)).toMatch(/^Planning estimates only\. Loads, pressures and anything structural/);
+    const json = JSON.parse((await run(['eval', join(dir, 'load.md'), '--json'])).stdout) as { caution?: string };
+    expect(json.caution).toMatch(/licensed engineer/);
+    const plain = JSON.parse((await run(['eval', join(dir, 'good.md'), '--json'])).stdout) as { caution?: string };
+    expect(plain.caution).toBeUndefined();
+  });
+
   it('check counts the checks and notes a sheet with nothing to evaluate', async () => {
     const other = mkdtempSync(join(tmpdir(), 'ws-cli-fence-'));
     // A fence word far from `basis` (a slip of one letter is an error of its own): nothing on the sheet is evaluated.
