@@ -64,16 +64,18 @@ describe('the stable range of α_u in the model', () => {
     expect(rangeRemark(r)).toBe('In this model no α makes the factor fall below 1.');
     // Project wording: λ to 4 digits, and what to look at instead.
     expect(r.warnings).toContain(
-      "in the model this run's error grows by itself (λ = 1.014 ≥ 1): under-relaxation only slows the growth, no factor stops it; look at the mesh, the boundary conditions or the time step.",
+      "in the model this run's error grows by itself (λ = 1.014 > 1): under-relaxation only slows the growth, no factor stops it; look at the mesh, the boundary conditions or the time step.",
     );
   });
 
-  it('λ exactly 1: the factor is 1 at every α, so the warning stands', () => {
+  it('λ exactly 1: the factor is 1 at every α, and the warning says the error keeps its size', () => {
     // ρ = 1 monotone: λ = 1 − 0/α = 1, and 1 − α (1 − 1) = 1 for every α.
     const r = relax(0.7, historyRecord('stalled', 1));
     expect(siField(r, 'lambda')).toBe(1);
     expect(rangeRemark(r)).toBe('In this model no α makes the factor fall below 1.');
-    expect(r.warnings.join(' ')).toMatch(/λ = 1 ≥ 1\): under-relaxation only slows the growth, no factor stops it/);
+    expect(r.warnings).toContain(
+      "in the model this run's error keeps its size (λ = 1): under-relaxation leaves the factor at 1 whatever its value; look at the mesh, the boundary conditions or the time step.",
+    );
   });
 
   it('λ between 0 and 1: every α_u up to 1 converges, the larger the faster', () => {
@@ -119,7 +121,7 @@ describe('a diverging run whose trailing factor is not below 1', () => {
     const r = relax(0.7, h);
     expect(r.remarks.join('\n')).not.toMatch(/No estimate/);
     expect(siField(r, 'lambda')).toBe(1);
-    expect(r.warnings.join(' ')).toMatch(/no factor stops it/);
+    expect(r.warnings.join(' ')).toMatch(/error keeps its size \(λ = 1\): under-relaxation leaves the factor at 1/);
   });
 });
 

@@ -308,7 +308,10 @@ const relaxation: TradeFunction = {
         Object.assign(values, { lambda: num(lambda), next_factor: num(nextFactor) });
         remarks.push(...modelRemarks(factor, alphaU, mode, lambda, at, nextFactor, worst));
         if (mode === 'monotone' && lambda >= 1) {
-          warnings.push(`in the model this run's error grows by itself (λ = ${numberText(lambda, { digits: 4 })} ≥ 1): under-relaxation only slows the growth, no factor stops it; look at the mesh, the boundary conditions or the time step.`);
+          // At λ = 1 the damped factor 1 − α (1 − λ) is 1 for every α: the error neither grows nor shrinks.
+          const what = lambda > 1 ? 'grows by itself' : 'keeps its size';
+          const relaxing = lambda > 1 ? 'only slows the growth, no factor stops it' : 'leaves the factor at 1 whatever its value';
+          warnings.push(`in the model this run's error ${what} (λ = ${numberText(lambda, { digits: 4 })}${lambda > 1 ? ' > 1' : ''}): under-relaxation ${relaxing}; look at the mesh, the boundary conditions or the time step.`);
         }
       }
     } else if (toAlpha !== undefined || args['mode'] !== undefined) {
