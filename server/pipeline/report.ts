@@ -60,7 +60,7 @@ export function buildReport(input: ReportInput): SheetReport {
       const compared = r.passed ? undefined : comparedValuesText(r.stmt.expr, evaluation.values, input.sig);
       const check: CheckJson = { line: r.stmt.line, passed: r.passed, text: r.stmt.label ?? r.stmt.source.replace(/^check\s+/, ''), ...(compared ? { compared } : {}) };
       checks.push(r.range ? { ...check, range: { holds: r.range.holds, text: r.range.text } } : check);
-      if (!r.passed) problems.push({ line: r.stmt.line, text: `check failed: ${r.stmt.label ?? r.stmt.source}`, kind: 'fail' });
+      if (!r.passed) problems.push({ line: r.stmt.line, text: `check failed: ${r.stmt.label ?? r.stmt.source}${compared ? ` (${compared})` : ''}`, kind: 'fail' });
       else if (r.range && !r.range.holds) problems.push({ line: r.stmt.line, text: `${r.stmt.label ?? r.stmt.source}: ${r.range.text}`, kind: 'range' });
     }
     if (r.stmt.type === 'define' && r.value) {

@@ -27,3 +27,10 @@ describe('a failed check', () => {
     ]);
   });
 });
+
+describe('the summary above the sheet', () => {
+  it('lists a failed check with the values it compared', async () => {
+    const r = await renderSheet('```basis\nU = 28 m/s\ncheck U <= 25 m/s "within the rating"\n```\n');
+    expect(r.html).toContain('check failed: within the rating (U = 28 m/s)');
+  });
+});
