@@ -1,11 +1,14 @@
 // `wakesheet serve [DIR] [--port N] [--host H]`: parse the flags, start the
 // server, print where it listens, and stop cleanly on Ctrl-C.
-import { DEFAULT_HOST, DEFAULT_PORT, startServer, type RunningServer } from '../serve/index.js';
+import { statSync } from 'node:fs';
+import { basename, dirname } from 'node:path';
+import { DEFAULT_HOST, DEFAULT_PORT, sheetUrl, startServer, type RunningServer } from '../serve/index.js';
 
 export const SERVE_HELP = `Usage: wakesheet serve [DIR] [--port N] [--host H]
 
 Serve the worksheets in DIR (default: the current folder) and update every
-open page when a sheet or a data file it reads is saved.
+open page when a sheet or a data file it reads is saved. Given a sheet
+(SHEET.md) instead, serves its folder and prints that sheet's address.
 
 Options:
   --port N   port to listen on (default ${DEFAULT_PORT}; 0 picks a free one)
@@ -66,7 +69,10 @@ export async function serveCommand(argv: string[], io: ServeIo = defaultIo()): P
     io.err(`wakesheet serve: ${parsed.message}\n\n${SERVE_HELP}`);
     return 2;
   }
-  const { dir, port, host } = parsed.args;
+  const { port, host } = parsed.args;
+  // A sheet given where a folder is expected: serve its folder, and say where the sheet is.
+  const sheet = isSheetFile(parsed.args.dir) ? basename(parsed.args.dir) : undefined;
+  const dir = sheet ? dirname(parsed.args.dir) : parsed.args.dir;
   let server: RunningServer;
   try {
     server = await startServer({ dir, port, host, warn: (line) => io.err(line + '\n') });
@@ -74,10 +80,19 @@ export async function serveCommand(argv: string[], io: ServeIo = defaultIo()): P
     io.err(`wakesheet serve: ${explainStartFailure(error, parsed.args)}\n`);
     return 1;
   }
-  io.out(`Serving ${server.root} at ${server.url}\nPress Ctrl-C to stop.\n`);
+  const sheetLine = sheet ? `This sheet: ${new URL(sheetUrl(sheet), server.url).href}\n` : '';
+  io.out(`Serving ${server.root} at ${server.url}\n${sheetLine}Press Ctrl-C to stop.\n`);
   await (io.stopSignal ?? untilSignal());
   await server.close();
   return 0;
+}
+
+function isSheetFile(path: string): boolean {
+  try {
+    return path.toLowerCase().endsWith('.md') && statSync(path).isFile();
+  } catch {
+    return false;
+  }
 }
 
 function explainStartFailure(error: unknown, args: ServeArgs): string {

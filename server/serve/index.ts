@@ -111,3 +111,4 @@ function listen(server: Server, port: number, host: string): Promise<number> {
 }
 
 export type { SheetRunner } from './store.js';
+export { sheetUrl } from './pages.js';

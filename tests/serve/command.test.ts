@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { join } from 'node:path';
 import { parseServeArgs, serveCommand, SERVE_HELP } from '../../server/cli/serve.js';
 import { makeFolder } from './helpers.js';
 
@@ -68,6 +69,25 @@ describe('serveCommand', () => {
     expect(await running).toBe(0);
     await expect(fetch(url)).rejects.toThrow();
     expect(c.err).toEqual([]);
+    await folder.remove();
+  });
+
+  it('given a sheet, serves its folder and prints the address of the sheet', async () => {
+    const folder = await makeFolder({ 'mast top.md': '```basis\nU = 34 m/s\n```\n' });
+    const c = capture();
+    let stop!: () => void;
+    const running = serveCommand([join(folder.dir, 'mast top.md'), '--port', '0'], { ...c.io, stopSignal: new Promise((r) => (stop = r)) });
+    const sheetAt = await new Promise<string>((resolve) => {
+      const poll = setInterval(() => {
+        const m = /This sheet: (http:\/\/127\.0\.0\.1:\d+\/sheet\/mast%20top\.md)\n/.exec(c.out.join(''));
+        if (m) (clearInterval(poll), resolve(m[1]!));
+      }, 10);
+    });
+    const page = await fetch(sheetAt);
+    expect(page.status).toBe(200);
+    expect(await page.text()).toContain('data-name="U"');
+    stop();
+    expect(await running).toBe(0);
     await folder.remove();
   });
 
