@@ -3,6 +3,7 @@
 // solver's own set-up files.
 import { dirname, resolve } from 'node:path';
 import type { ValueJson } from '../pipeline/index.js';
+import { CAUTION } from '../render/page.js';
 import { failing, overridesOf, parseArgs, runOne, Sandbox, sheetArgument, UsageError, writeOutput, type FlagSpec } from './shared.js';
 
 export const EXPORT_HELP = `wakesheet export SHEET.md --json|--csv [-o FILE] [--root DIR] [--set NAME=VALUE …]
@@ -13,7 +14,9 @@ tables nested; --csv gives one row per number: name, si, unit, display,
 warnings, u (the standard uncertainty in SI, where the value has one;
 records as name.field, lists as name[1], tables as name[1].column).
 Without -o the export goes to standard output. --set (repeatable) replaces an
-input for this run; the JSON then lists the inputs set.`;
+input for this run; the JSON then lists the inputs set. A sheet that computes a
+load adds the planning caution: "caution" in the JSON, a note on standard
+error with --csv.`;
 
 const FLAGS: FlagSpec = { flags: { json: 'switch', csv: 'switch', output: 'value', root: 'value', set: 'repeat' }, short: { o: 'output' } };
 
@@ -31,7 +34,9 @@ export async function exportCommand(argv: string[], sandbox = new Sandbox()): Pr
       process.stderr.write(`${file}: ${failure}\n`);
       return 1;
     }
-    const text = flags.has('json') ? JSON.stringify({ values: result.values, errors: result.errors, ...(result.overrides.length ? { overrides: result.overrides } : {}) }, null, 2) + '\n' : csvOf(result.values);
+    const text = flags.has('json') ? JSON.stringify({ values: result.values, errors: result.errors, ...(result.overrides.length ? { overrides: result.overrides } : {}), ...(result.caution ? { caution: CAUTION } : {}) }, null, 2) + '\n' : csvOf(result.values);
+    // A CSV has no place for it that a reader of the numbers cannot mistake for a value: the terminal gets it.
+    if (result.caution && flags.has('csv')) process.stderr.write(`note: ${CAUTION}\n`);
     const out = flags.get('output') as string | undefined;
     if (out) writeOutput(out, text);
     else process.stdout.write(text);

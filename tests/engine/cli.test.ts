@@ -56,6 +56,12 @@ describe('wakesheet CLI', () => {
     expect(json.caution).toMatch(/licensed engineer/);
     const plain = JSON.parse((await run(['eval', join(dir, 'good.md'), '--json'])).stdout) as { caution?: string };
     expect(plain.caution).toBeUndefined();
+    // export keeps it too: in the JSON, and beside a CSV on standard error, never as a row.
+    const exported = JSON.parse((await run(['export', join(dir, 'load.md'), '--json'])).stdout) as { caution?: string };
+    expect(exported.caution).toMatch(/licensed engineer/);
+    const csv = await run(['export', join(dir, 'load.md'), '--csv']);
+    expect(csv.stderr).toMatch(/^note: Planning estimates only\./);
+    expect(csv.stdout).not.toContain('Planning');
   });
 
   it('check counts the checks and notes a sheet with nothing to evaluate', async () => {
