@@ -134,6 +134,7 @@ export class SheetPipeline {
       broken,
       lineErrors: [...uses.errors, ...overrideErrors, ...sheet.fenceSlips.map(fenceSlipError)],
       evaluation,
+      lastGood: this.lastGood,
       inline,
       parts,
       untypeset,

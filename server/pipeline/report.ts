@@ -22,6 +22,8 @@ export interface ReportInput {
   /** Errors found before evaluation on other lines: uses that failed, inputs that could not be set. */
   lineErrors: readonly Diagnostic[];
   evaluation: SheetEvaluation;
+  /** The last good values of the live page, shown stale beside lines that fail now. */
+  lastGood?: ReadonlyMap<string, Value>;
   inline: readonly InlineExpr[];
   parts: SheetPart[];
   /** Statements and prose parts the time budget left untypeset. */
@@ -99,7 +101,9 @@ export function buildReport(input: ReportInput): SheetReport {
   };
   // A bare expression's result counts as much as a named one: `abl(...)` alone on a line still gives wind loads.
   const shown = [...evaluation.values.values(), ...evaluation.results.flatMap((r) => (r.value ? [r.value] : []))];
-  const caution = shown.some(needsCaution) || evaluation.results.some(computesLoad) || input.meta.caution === 'true';
+  // While a line is broken, the load it computed is still on the page as a stale value: so is the caution.
+  const stale = evaluation.results.flatMap((r) => (r.stmt.type === 'define' && !r.value && input.lastGood?.has(r.stmt.name) ? [{ ...r, value: input.lastGood.get(r.stmt.name) }] : []));
+  const caution = [...shown, ...stale.map((r) => r.value!)].some(needsCaution) || [...evaluation.results, ...stale].some(computesLoad) || input.meta.caution === 'true';
   return {
     title: input.title,
     meta: input.meta,

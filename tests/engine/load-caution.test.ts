@@ -19,3 +19,18 @@ describe('the planning caution', () => {
     expect(r.html).not.toContain('class="ws-caution"');
   });
 });
+
+describe('the planning caution on a live page', () => {
+  it('stays while a broken line leaves the load it computed on the page as a stale value', async () => {
+    const { SheetPipeline } = await import('../../server/pipeline/index.js');
+    const session = new SheetPipeline();
+    const text = (u: string) => '```basis\nU = ' + u + '\nq = dynamic_pressure(U, air(T: 5 degC))\n```\n';
+    expect(session.run(text('34 m/s')).caution).toBe(true);
+    const broken = session.run(text('34 m/s + 3 Pa'));
+    expect(broken.errors).toHaveLength(1);
+    expect(broken.parts.map((p) => p.html).join('')).toContain('last good value');
+    expect(broken.caution).toBe(true);
+    // A one-off run of the broken sheet has no last good value to show, and no load either.
+    expect(new SheetPipeline().run(text('34 m/s + 3 Pa')).caution).toBe(false);
+  });
+});
