@@ -12,8 +12,9 @@ Prints one line per failed check or error as file:line: message, and exits 1
 if there is any. A check that holds at nominal but not over the ±2u range of
 the uncertain inputs it depends on is listed too, as a note: it does not
 change the exit code, nor does a sheet with no \`basis\` block (noted: nothing
-on it was evaluated); a folder with no sheet at all is refused (exit 2). --set U_inf=20m/s (repeatable) replaces an input for this run
-in every sheet that defines it; a name no sheet defines is an error.`;
+on it was evaluated); a folder with no sheet at all is refused (exit 2).
+--set U_inf=20m/s (repeatable) replaces an input for this run in every sheet
+that defines it; a name no sheet defines is an error.`;
 
 export async function checkCommand(argv: string[], sandbox = new Sandbox()): Promise<number> {
   const parsed = parseArgs(argv, { flags: { set: 'repeat' } });
