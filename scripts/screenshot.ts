@@ -13,7 +13,7 @@ import path from 'node:path';
 import { existsSync } from 'node:fs';
 import { mkdir } from 'node:fs/promises';
 import { openChromium } from './chromium.js';
-import { startServer } from '../server/serve/index.js';
+import { sheetUrl, startServer } from '../server/serve/index.js';
 
 const args = process.argv.slice(2);
 const flag = (name: string) => args.includes(name);
@@ -53,7 +53,7 @@ const browser = await openChromium({ width, height });
 const context = browser.context;
 try {
   const page = context.pages()[0] ?? (await context.newPage());
-  await page.goto(new URL('sheet/' + sheet.split(path.sep).map(encodeURIComponent).join('/'), server.url).href, { waitUntil: 'networkidle' });
+  await page.goto(new URL(sheetUrl(sheet.split(path.sep).join('/')), server.url).href, { waitUntil: 'networkidle' });
   await page.evaluate(() => document.fonts.ready);
   const at = option('--at', '');
   if (at) {

@@ -2,7 +2,7 @@
 // errors, the summary and the values as JSON. A pure function of its input.
 import type { Value } from '../core/index.js';
 import type { InlineExpr, SheetEvaluation } from '../evaluate/index.js';
-import { isLiteral, literalArguments, literalText, type BrokenLine } from '../parse/index.js';
+import { isLiteral, literalArguments, literalText, type BrokenLine, type Statement } from '../parse/index.js';
 import { sheetHeaderHtml, summaryHtml, type SummaryItem } from '../render/page.js';
 import type { SheetPart } from '../render/parts.js';
 import { comparedValuesText } from '../render/compared-values.js';
@@ -100,10 +100,13 @@ export function buildReport(input: ReportInput): SheetReport {
     errors: errors.length,
   };
   // A bare expression's result counts as much as a named one: `abl(...)` alone on a line still gives wind loads.
-  const shown = [...evaluation.values.values(), ...evaluation.results.flatMap((r) => (r.value ? [r.value] : []))];
-  // While a line is broken, the load it computed is still on the page as a stale value: so is the caution.
-  const stale = evaluation.results.flatMap((r) => (r.stmt.type === 'define' && !r.value && input.lastGood?.has(r.stmt.name) ? [{ ...r, value: input.lastGood.get(r.stmt.name) }] : []));
-  const caution = [...shown, ...stale.map((r) => r.value!)].some(needsCaution) || [...evaluation.results, ...stale].some(computesLoad) || input.meta.caution === 'true';
+  // While a line is broken, what it computed is still on the live page as a stale value: so is its caution.
+  const onPage = evaluation.results.flatMap((r) => {
+    const value = r.value ?? (r.stmt.type === 'define' ? input.lastGood?.get(r.stmt.name) : undefined);
+    return value ? [{ stmt: r.stmt, value }] : [];
+  });
+  const shown = [...evaluation.values.values(), ...onPage.map((p) => p.value)];
+  const caution = shown.some(needsCaution) || onPage.some(computesLoad) || input.meta.caution === 'true';
   return {
     title: input.title,
     meta: input.meta,
@@ -156,8 +159,8 @@ const LOAD_DIMS: readonly Dims[] = [
  * `F = q * A`) calls for the planning caution as a tagged record does. Inputs typed
  * as numbers (an ambient pressure) and fields inside records (a fluid's p) do not.
  */
-function computesLoad(r: SheetEvaluation['results'][number]): boolean {
-  if (!r.value || (r.stmt.type === 'define' && isLiteral(r.stmt.expr)) || r.stmt.type === 'check') return false;
-  const items = r.value.kind === 'list' ? r.value.items : [r.value];
+function computesLoad({ stmt, value }: { stmt: Statement; value: Value }): boolean {
+  if ((stmt.type === 'define' && isLiteral(stmt.expr)) || stmt.type === 'check') return false;
+  const items = value.kind === 'list' ? value.items : [value];
   return items.some((v) => v.kind === 'quantity' && LOAD_DIMS.some((d) => dimsEqual(d, v.dims)));
 }

@@ -4,8 +4,7 @@
 // comes from the engine (already sanitised); everything that comes from the
 // file system or the front matter and lands here is escaped. Scripts load
 // from /assets only.
-import { countText, escapeHtml } from '../core/index.js';
-import { nearestWord } from '../core/shared/words.js';
+import { countText, escapeHtml, nearestWord } from '../core/index.js';
 import type { IndexEntry, SheetCondition, SheetUpdate } from './protocol.js';
 
 /** URL of a sheet's page, each path segment encoded. */
