@@ -164,7 +164,8 @@ function monteCarlo(e: CallExpr, t: Target, env: UncertaintyEnv, samples: number
       const y = t.field === undefined ? v : v?.kind === 'record' ? v.fields.get(t.field)?.value : undefined;
       if (y?.kind === 'quantity') ys[kept++] = y.si;
     }
-    if (env.progress && (r + 1) % PROGRESS_EVERY === 0) env.progress(r + 1, samples);
+    // The last sample is not progress: the result itself follows at once.
+    if (env.progress && (r + 1) % PROGRESS_EVERY === 0 && r + 1 < samples) env.progress(r + 1, samples);
   }
   if (kept < 2) throw new SheetError('bad-argument', `propagate() could not evaluate ${t.label} for its samples${firstFailure ? ` (${firstFailure})` : ''}`, e.span);
   const p = 0.95;

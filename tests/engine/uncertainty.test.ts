@@ -217,3 +217,12 @@ describe('with overrides and sweeps', () => {
     expect(r.checks[0]!.range!.holds).toBe(true);
   });
 });
+
+describe('progress of a Monte Carlo run', () => {
+  it('counts the samples done in steps, and never the last one: the result follows it', async () => {
+    const { SheetPipeline } = await import('../../server/pipeline/index.js');
+    const heard: Array<{ done: number; total: number }> = [];
+    new SheetPipeline().run('```basis\nx = 0 ± 1\ny = 2 * x\nmc = propagate(y, samples: 6000)\n```\n', {}, { progress: (p) => heard.push(p) });
+    expect(heard.map((p) => [p.done, p.total])).toEqual([[2000, 6000], [4000, 6000]]);
+  });
+});
